@@ -82,11 +82,14 @@ public enum Code {
     ONTOLOGY_SYNTAX(6001, Severity.ERROR, "%s"),
     ONTOLOGY_UNREADABLE(6002, Severity.ERROR, "cannot read %s: %s"),
     ONTOLOGY_EMPTY(6003, Severity.ERROR, "%s holds no classes or properties"),
-    NAME_COLLISION(6004, Severity.ERROR, "%s and %s both map to the graph name '%s'"),
+    NAME_COLLISION(6004, Severity.WARNING,
+            "%s and %s both map to the %s name '%s'; they are named %s (set tg:graphName on a term to choose its name)"),
     SUBCLASS_CYCLE(6005, Severity.WARNING, "classes %s form a subclass cycle; they are treated as equivalent"),
     PUNNED_TERM(6006, Severity.WARNING, "%s is declared both as a class and as a property"),
     UNSUPPORTED_DOMAIN(6007, Severity.WARNING, "%s has a %s that is not a class or a union of classes; it is treated as any class"),
     UNKNOWN_DATA_TERM(6008, Severity.WARNING, "%s is not defined by the ontology; %d statement(s) not imported"),
+    IMPORT_NOT_LOADED(6009, Severity.WARNING, "%s imports %s, which is not among the sources given; it was not fetched"),
+    MIXED_RANGE(6010, Severity.INFO, "%d propert(ies) have both literal and class ranges and are both a property key and a relationship type (e.g. %s)"),
 
     // ---- TG7xxx translation ----
     NO_QUERY_IN_REPLY(7001, Severity.ERROR, "the model's reply holds no query"),
