@@ -1,0 +1,269 @@
+package dev.termgate.card;
+
+import dev.termgate.link.LinkedTerm;
+import dev.termgate.link.Linking;
+import dev.termgate.schema.Endpoint;
+import dev.termgate.schema.GraphSchema;
+import dev.termgate.schema.PropertyKey;
+import dev.termgate.schema.RelType;
+import dev.termgate.schema.TermInfo;
+import dev.termgate.schema.TermKind;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.OptionalInt;
+import java.util.Set;
+
+/**
+ * Chooses and renders the card for one question within a token budget (see {@link Cards#forQuestion}).
+ *
+ * <p>Counting: lines never start with white space, and both encodings split text at line ends before
+ * merging bytes, so the tokens of the card are the sum of its lines' tokens (checked in CardBudgetTest against
+ * a count of the whole text). Each distinct line is counted once, which keeps trying a term cheap.
+ */
+final class QuestionCard {
+
+    static final String FALLBACK_NOTICE = "no term of the question was recognised; the card shows the most central "
+            + "part of the ontology instead";
+
+    private record Ref(TermKind kind, String name) {}
+
+    /** What a term brings: itself and the terms that keep the card a valid sub-schema, with the reason for each. */
+    private record Addition(Map<Ref, String> refs) {}
+
+    private final GraphSchema schema;
+    private final Linking linking;
+    private final int budget;
+    private final TokenCounter counter;
+    private final Map<String, Integer> lineTokens = new HashMap<>();
+
+    private final Map<Ref, LinkedTerm> ranked = new LinkedHashMap<>();
+    private final Map<Ref, Integer> rank = new HashMap<>();
+    /** Shown terms in the order they were chosen, with the card's own reasons. */
+    private final Map<Ref, List<String>> shown = new LinkedHashMap<>();
+    private final List<String> notices = new ArrayList<>();
+
+    QuestionCard(GraphSchema schema, Linking linking, int budget, TokenCounter counter) {
+        this.schema = schema;
+        this.linking = linking;
+        this.budget = budget;
+        this.counter = counter;
+    }
+
+    Card build() {
+        if (linking.fallback()) notices.add(FALLBACK_NOTICE);
+        notices.addAll(linking.notices());
+        for (LinkedTerm t : linking.ranked()) {
+            Ref r = new Ref(t.kind(), t.name());
+            if (info(r).isEmpty()) {
+                notices.add("the linker named " + t.kind().word() + " '" + t.name() + "', which the schema lacks; ignored");
+                continue;
+            }
+            if (ranked.putIfAbsent(r, t) == null) rank.put(r, rank.size());
+        }
+        int smallestTried = Integer.MAX_VALUE;
+        int skipped = 0;
+        int remaining = ranked.size();
+        for (Ref r : ranked.keySet()) {
+            remaining--;
+            if (shown.containsKey(r)) continue;
+            Addition add = additionFor(r);
+            // The footer is not known yet: reserve room for the longest it can become (every term after this one
+            // left out too). Its token count grows with the number, so the final card stays within the budget.
+            int tokens = tokensWith(add, CardText.footer(skipped + remaining, budget));
+            if (tokens <= budget) {
+                commit(add);
+            } else {
+                skipped++;
+                smallestTried = Math.min(smallestTried, tokens);
+            }
+        }
+        if (shown.isEmpty() && !ranked.isEmpty()) throw new BudgetTooSmallException(budget, smallestTried);
+        int leftOut = (int) ranked.keySet().stream().filter(r -> !shown.containsKey(r)).count();
+        Optional<String> footer = CardText.footer(leftOut, budget);
+        fillKeys(footer);
+        if (leftOut > 0) {
+            notices.add(leftOut + " ranked term" + (leftOut == 1 ? " was" : "s were") + " left out to stay within "
+                    + budget + " tokens");
+        }
+        CardScope scope = scope(Map.of());
+        String text = CardText.join(lines(scope, footer));
+        int tokens = counter.count(text);
+        if (tokens > budget) {
+            throw new IllegalStateException("card of " + tokens + " tokens exceeds its budget of " + budget);
+        }
+        return new Card(text, tokens, OptionalInt.of(budget), counter.encoding(), terms(), leftOut,
+                linking.fallback(), notices, scope);
+    }
+
+    /**
+     * Budget left over goes to the keys of the labels shown, one key per label in turn (labels in the order
+     * they were chosen, keys by name), so that the model can also pick what to return. Deprecated keys are not
+     * added this way: only a linker's ranking puts them on a card.
+     */
+    private void fillKeys(Optional<String> footer) {
+        List<List<String>> queues = new ArrayList<>();
+        for (Ref r : List.copyOf(shown.keySet())) {
+            if (r.kind() != TermKind.LABEL) continue;
+            List<String> own = schema.properties().values().stream()
+                    .filter(k -> k.domains().contains(r.name()))
+                    .filter(k -> !k.info().deprecated())
+                    .map(PropertyKey::name)
+                    .filter(k -> !shown.containsKey(new Ref(TermKind.PROPERTY, k)))
+                    .sorted().toList();
+            if (!own.isEmpty()) queues.add(new ArrayList<>(own));
+        }
+        boolean any = true;
+        while (any) {
+            any = false;
+            for (List<String> q : queues) {
+                while (!q.isEmpty()) {
+                    Ref k = new Ref(TermKind.PROPERTY, q.remove(0));
+                    if (shown.containsKey(k)) continue;
+                    Addition add = new Addition(Map.of(k, "key of a label shown, added with budget to spare"));
+                    if (tokensWith(add, footer) <= budget) {
+                        commit(add);
+                        any = true;
+                        break;
+                    }
+                }
+            }
+        }
+    }
+
+    private Addition additionFor(Ref r) {
+        Map<Ref, String> refs = new LinkedHashMap<>();
+        refs.put(r, "");
+        switch (r.kind()) {
+            case LABEL -> { }
+            case RELATIONSHIP -> endpointsToAdd(schema.relTypes().get(r.name()))
+                    .forEach(l -> refs.putIfAbsent(new Ref(TermKind.LABEL, l), "endpoint of " + r.name()));
+            case PROPERTY -> holderToAdd(schema.properties().get(r.name()))
+                    .ifPresent(l -> refs.putIfAbsent(new Ref(TermKind.LABEL, l), "holds key " + r.name()));
+        }
+        return new Addition(refs);
+    }
+
+    /**
+     * The labels a relationship type needs so that at least one of its endpoint pairs is on the card: none when a
+     * pair is already covered (or a super type on the card shows them); otherwise the ends of the pair missing the
+     * fewest, ties broken by the best rank of the missing ends, then by name.
+     */
+    private List<String> endpointsToAdd(RelType rel) {
+        CardScope now = scope(Map.of(new Ref(TermKind.RELATIONSHIP, rel.name()), ""));
+        if (rel.superTypes().stream().anyMatch(now.relTypes()::contains) && CardText.ownEndpoints(schema, rel).isEmpty()) {
+            return List.of();
+        }
+        List<Endpoint> pairs = CardText.ownEndpoints(schema, rel);
+        if (pairs.isEmpty()) pairs = schema.effectiveEndpoints(rel.name());
+        if (pairs.isEmpty()) return List.of();
+        List<String> best = null;
+        Comparator<List<String>> order = Comparator.<List<String>>comparingInt(List::size)
+                .thenComparingInt(this::bestRank)
+                .thenComparing(l -> String.join(",", l));
+        for (Endpoint e : pairs) {
+            List<String> missing = new ArrayList<>(2);
+            if (!CardText.onCard(now, e.from())) missing.add(e.from());
+            if (!CardText.onCard(now, e.to()) && !missing.contains(e.to())) missing.add(e.to());
+            if (best == null || order.compare(missing, best) < 0) best = missing;
+        }
+        return best;
+    }
+
+    /**
+     * A label to hold a key when no label that declares it is on the card: a declaring label that a shown label
+     * inherits from first (the key then reaches the shown label too), else the best-ranked declaring label, else
+     * the first by name.
+     */
+    private Optional<String> holderToAdd(PropertyKey key) {
+        if (key.anyDomain()) return Optional.empty();
+        Set<String> shownLabels = scope(Map.of()).labels();
+        if (key.domains().stream().anyMatch(shownLabels::contains)) return Optional.empty();
+        Optional<String> inherited = key.domains().stream().sorted()
+                .filter(d -> shownLabels.stream().anyMatch(l -> schema.isSubLabel(l, d)))
+                .findFirst();
+        if (inherited.isPresent()) return inherited;
+        return key.domains().stream()
+                .filter(schema.labels()::containsKey)
+                .min(Comparator.comparingInt((String d) -> rank.getOrDefault(new Ref(TermKind.LABEL, d), Integer.MAX_VALUE))
+                        .thenComparing(Comparator.naturalOrder()));
+    }
+
+    private int bestRank(List<String> labels) {
+        return labels.stream().mapToInt(l -> rank.getOrDefault(new Ref(TermKind.LABEL, l), Integer.MAX_VALUE))
+                .min().orElse(-1);
+    }
+
+    private void commit(Addition add) {
+        add.refs().forEach((r, why) -> {
+            List<String> reasons = shown.computeIfAbsent(r, k -> new ArrayList<>());
+            if (!why.isEmpty() && !reasons.contains(why)) reasons.add(why);
+        });
+    }
+
+    private int tokensWith(Addition add, Optional<String> footer) {
+        int sum = 0;
+        for (String line : lines(scope(add.refs()), footer)) {
+            sum += lineTokens.computeIfAbsent(line, l -> counter.count(l + "\n"));
+        }
+        return sum;
+    }
+
+    private List<String> lines(CardScope scope, Optional<String> footer) {
+        List<String> lines = new ArrayList<>();
+        lines.add(CardText.questionHeader(schema, scope));
+        lines.add(CardText.LEGEND);
+        lines.addAll(CardText.body(schema, scope));
+        footer.ifPresent(lines::add);
+        return lines;
+    }
+
+    /** The shown terms plus, when given, an addition being tried. */
+    private CardScope scope(Map<Ref, String> extra) {
+        Set<String> labels = new LinkedHashSet<>();
+        Set<String> rels = new LinkedHashSet<>();
+        Set<String> keys = new LinkedHashSet<>();
+        for (Ref r : shown.keySet()) add(r, labels, rels, keys);
+        for (Ref r : extra.keySet()) add(r, labels, rels, keys);
+        return CardScope.of(labels, rels, keys);
+    }
+
+    private static void add(Ref r, Set<String> labels, Set<String> rels, Set<String> keys) {
+        switch (r.kind()) {
+            case LABEL -> labels.add(r.name());
+            case RELATIONSHIP -> rels.add(r.name());
+            case PROPERTY -> keys.add(r.name());
+        }
+    }
+
+    private List<CardTerm> terms() {
+        List<CardTerm> out = new ArrayList<>();
+        shown.forEach((r, reasons) -> {
+            TermInfo info = info(r).orElseThrow();
+            LinkedTerm t = ranked.get(r);
+            if (t == null) {
+                out.add(Cards.plainTerm(info, reasons));
+            } else {
+                List<String> evidence = new ArrayList<>(t.evidence());
+                reasons.forEach(w -> { if (!evidence.contains(w)) evidence.add(w); });
+                out.add(new CardTerm(r.kind(), r.name(), info.iri(), OptionalDouble.of(t.score()), evidence));
+            }
+        });
+        return out;
+    }
+
+    private Optional<TermInfo> info(Ref r) {
+        return switch (r.kind()) {
+            case LABEL -> schema.label(r.name()).map(l -> l.info());
+            case RELATIONSHIP -> schema.relType(r.name()).map(RelType::info);
+            case PROPERTY -> schema.property(r.name()).map(PropertyKey::info);
+        };
+    }
+}

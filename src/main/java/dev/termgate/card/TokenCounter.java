@@ -1,0 +1,55 @@
+package dev.termgate.card;
+
+import com.knuddels.jtokkit.Encodings;
+import com.knuddels.jtokkit.api.Encoding;
+import com.knuddels.jtokkit.api.EncodingRegistry;
+import com.knuddels.jtokkit.api.EncodingType;
+
+import java.util.EnumMap;
+import java.util.Map;
+
+/**
+ * Counts tokens as a hosted model would. Each encoding is loaded on first use only and then shared: loading
+ * o200k_base takes about half a second and 150 MB, which a command that never counts must not pay.
+ */
+public final class TokenCounter {
+
+    private static final Map<TokenEncoding, TokenCounter> LOADED = new EnumMap<>(TokenEncoding.class);
+
+    private final TokenEncoding encoding;
+    private final Encoding tokenizer;
+
+    private TokenCounter(TokenEncoding encoding, Encoding tokenizer) {
+        this.encoding = encoding;
+        this.tokenizer = tokenizer;
+    }
+
+    /** The counter for this encoding, loading its vocabulary the first time it is asked for. */
+    public static TokenCounter of(TokenEncoding encoding) {
+        synchronized (LOADED) {
+            return LOADED.computeIfAbsent(encoding,
+                    e -> new TokenCounter(e, Registry.LAZY.getEncoding(type(e))));
+        }
+    }
+
+    public TokenEncoding encoding() {
+        return encoding;
+    }
+
+    /** Tokens of the text read as plain text (special-token markers in it are not treated as special). */
+    public int count(String text) {
+        return tokenizer.countTokensOrdinary(text);
+    }
+
+    private static EncodingType type(TokenEncoding e) {
+        return switch (e) {
+            case CL100K_BASE -> EncodingType.CL100K_BASE;
+            case O200K_BASE -> EncodingType.O200K_BASE;
+        };
+    }
+
+    /** Holder idiom: the registry itself is created only when the first count is asked for. */
+    private static final class Registry {
+        static final EncodingRegistry LAZY = Encodings.newLazyEncodingRegistry();
+    }
+}
