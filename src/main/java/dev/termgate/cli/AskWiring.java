@@ -1,0 +1,55 @@
+package dev.termgate.cli;
+
+import dev.termgate.schema.GraphSchema;
+import dev.termgate.translate.ModelSettings;
+import dev.termgate.translate.Pipeline;
+import dev.termgate.translate.PipelineSpec;
+import dev.termgate.translate.Prompts;
+import dev.termgate.translate.ServiceFailure;
+import dev.termgate.translate.StandardPipeline;
+import dev.termgate.translate.Translator;
+import dev.termgate.translate.Translators;
+
+/** Opens what ask, shell and batch share, turning each failure into the documented exit code. */
+final class AskWiring {
+
+    private AskWiring() {}
+
+    static Pipeline.Factory standard() {
+        return new StandardPipeline();
+    }
+
+    static Pipeline open(Pipeline.Factory factory, PipelineSpec spec) {
+        try {
+            return factory.open(spec);
+        } catch (Pipeline.PipelineException e) {
+            int code = e.invalidInput() ? Exit.INVALID : e.serviceFailed() ? Exit.SERVICE : Exit.USAGE;
+            throw new UserError(code, e.getMessage());
+        }
+    }
+
+    static Translator translator(ModelSettings settings, Prompts prompts, int attempts, GraphSchema schema) {
+        try {
+            return Translators.create(settings, prompts, attempts, schema);
+        } catch (IllegalArgumentException e) {
+            throw new UserError(Exit.USAGE, e.getMessage());
+        }
+    }
+
+    static UserError failed(ServiceFailure f) {
+        String what = switch (f.kind()) {
+            case AUTHENTICATION -> "the model provider refused the API key: ";
+            case MODEL_NOT_FOUND -> "the model provider rejected the model name: ";
+            default -> "the model service failed: ";
+        };
+        return new UserError(Exit.SERVICE, what + f.getMessage());
+    }
+
+    static void closeQuietly(AutoCloseable c) {
+        try {
+            c.close();
+        } catch (Exception ignored) {
+            // closing at exit: nothing left to tell the user
+        }
+    }
+}

@@ -1,0 +1,179 @@
+package dev.termgate.translate;
+
+import dev.langchain4j.http.client.HttpClient;
+import dev.langchain4j.http.client.HttpClientBuilder;
+import dev.langchain4j.http.client.HttpRequest;
+import dev.langchain4j.http.client.SuccessfulHttpResponse;
+import dev.langchain4j.http.client.sse.ServerSentEventListener;
+import dev.langchain4j.http.client.sse.ServerSentEventParser;
+
+import java.io.IOException;
+import java.net.URI;
+import java.net.http.HttpResponse;
+import java.net.http.HttpTimeoutException;
+import java.nio.charset.StandardCharsets;
+import java.time.Duration;
+import java.time.ZonedDateTime;
+import java.time.format.DateTimeFormatter;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * The HTTP client under LangChain4j's chat models. LangChain4j's own client drops the response headers of a
+ * failed call, and {@code Retry-After} is one of them; this one turns every failure into a
+ * {@link ServiceFailure} that keeps it, with the key redacted from any echoed text.
+ */
+final class ModelHttpClient implements HttpClient {
+
+    private static final Set<String> RESTRICTED = Set.of("host", "content-length", "connection", "expect", "upgrade");
+    private static final int MAX_ERROR_TEXT = 300;
+
+    private final java.net.http.HttpClient http;
+    private final Duration readTimeout;
+    private final Optional<Secret> key;
+    private final String modelName;
+
+    ModelHttpClient(Duration connectTimeout, Duration readTimeout, Optional<Secret> key, String modelName) {
+        this.http = java.net.http.HttpClient.newBuilder()
+                .version(java.net.http.HttpClient.Version.HTTP_1_1)
+                .connectTimeout(connectTimeout)
+                .followRedirects(java.net.http.HttpClient.Redirect.NORMAL)
+                .build();
+        this.readTimeout = readTimeout;
+        this.key = key;
+        this.modelName = modelName;
+    }
+
+    static HttpClientBuilder builder(Duration timeout, Optional<Secret> key, String modelName) {
+        return new HttpClientBuilder() {
+            Duration connect = Duration.ofSeconds(10);
+            Duration read = timeout;
+
+            @Override public Duration connectTimeout() { return connect; }
+            @Override public HttpClientBuilder connectTimeout(Duration d) { if (d != null) connect = d; return this; }
+            @Override public Duration readTimeout() { return read; }
+            // The models pass their own timeout here; ours (from --model-timeout) wins.
+            @Override public HttpClientBuilder readTimeout(Duration d) { return this; }
+            @Override public HttpClient build() { return new ModelHttpClient(connect, read, key, modelName); }
+        };
+    }
+
+    @Override
+    public SuccessfulHttpResponse execute(HttpRequest request) {
+        java.net.http.HttpRequest.Builder b = java.net.http.HttpRequest.newBuilder(URI.create(request.url()))
+                .timeout(readTimeout);
+        for (Map.Entry<String, List<String>> h : request.headers().entrySet()) {
+            if (RESTRICTED.contains(h.getKey().toLowerCase(Locale.ROOT))) continue;
+            for (String v : h.getValue()) b.header(h.getKey(), v);
+        }
+        String body = request.body();
+        switch (request.method()) {
+            case GET -> b.GET();
+            case DELETE -> b.DELETE();
+            default -> b.method(request.method().name(), body == null
+                    ? java.net.http.HttpRequest.BodyPublishers.noBody()
+                    : java.net.http.HttpRequest.BodyPublishers.ofString(body, StandardCharsets.UTF_8));
+        }
+        HttpResponse<String> response;
+        try {
+            response = http.send(b.build(), HttpResponse.BodyHandlers.ofString(StandardCharsets.UTF_8));
+        } catch (HttpTimeoutException e) {
+            throw new ServiceFailure(ServiceFailure.Kind.RETRIABLE,
+                    "no answer from " + host(request) + " within " + seconds(readTimeout), Optional.empty());
+        } catch (IOException e) {
+            throw new ServiceFailure(ServiceFailure.Kind.RETRIABLE,
+                    "cannot reach " + host(request) + ": " + redact(String.valueOf(e.getMessage())), Optional.empty());
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new ServiceFailure(ServiceFailure.Kind.FATAL, "cancelled", Optional.empty());
+        }
+        int status = response.statusCode();
+        if (status / 100 == 2) {
+            return SuccessfulHttpResponse.builder().statusCode(status).headers(response.headers().map())
+                    .body(response.body()).build();
+        }
+        throw failure(status, response.body(), response.headers().firstValue("Retry-After"), request);
+    }
+
+    private ServiceFailure failure(int status, String body, Optional<String> retryAfter, HttpRequest request) {
+        String text = excerpt(body);
+        String lower = text.toLowerCase(Locale.ROOT);
+        if (status == 401 || status == 403) {
+            // The body may quote part of the key: say nothing of it.
+            return new ServiceFailure(ServiceFailure.Kind.AUTHENTICATION, host(request)
+                    + " refused the API key (HTTP " + status + "); check TERMGATE_API_KEY or the config file", Optional.empty());
+        }
+        boolean modelUnknown = status == 404 || (status == 400 && lower.contains("model")
+                && (lower.contains("not found") || lower.contains("does not exist") || lower.contains("unknown")));
+        if (modelUnknown) {
+            return new ServiceFailure(ServiceFailure.Kind.MODEL_NOT_FOUND, host(request) + " does not know the model '"
+                    + modelName + "' (HTTP " + status + (text.isEmpty() ? "" : ": " + text) + ")", Optional.empty());
+        }
+        if (status == 429 || status == 408 || status / 100 == 5) {
+            return new ServiceFailure(ServiceFailure.Kind.RETRIABLE, host(request) + " answered HTTP " + status
+                    + (text.isEmpty() ? "" : ": " + text), retryAfter.flatMap(ModelHttpClient::parseRetryAfter));
+        }
+        return new ServiceFailure(ServiceFailure.Kind.FATAL, host(request) + " answered HTTP " + status
+                + (text.isEmpty() ? "" : ": " + text), Optional.empty());
+    }
+
+    /** Retry-After is either a number of seconds or an HTTP date (RFC 9110, section 10.2.3). */
+    static Optional<Duration> parseRetryAfter(String value) {
+        String v = value.strip();
+        try {
+            long s = Long.parseLong(v);
+            return s >= 0 ? Optional.of(Duration.ofSeconds(s)) : Optional.empty();
+        } catch (NumberFormatException notSeconds) {
+            try {
+                ZonedDateTime at = ZonedDateTime.parse(v, DateTimeFormatter.RFC_1123_DATE_TIME);
+                Duration d = Duration.between(ZonedDateTime.now(at.getZone()), at);
+                return Optional.of(d.isNegative() ? Duration.ZERO : d);
+            } catch (java.time.format.DateTimeParseException notDate) {
+                return Optional.empty();
+            }
+        }
+    }
+
+    /** A short, single-line, key-free excerpt of an error body; the error message field when it is JSON. */
+    private String excerpt(String body) {
+        if (body == null) return "";
+        String t = body;
+        try {
+            var json = com.google.gson.JsonParser.parseString(body);
+            if (json.isJsonObject() && json.getAsJsonObject().has("error")) {
+                var err = json.getAsJsonObject().get("error");
+                t = err.isJsonObject() && err.getAsJsonObject().has("message")
+                        ? err.getAsJsonObject().get("message").getAsString() : err.isJsonPrimitive() ? err.getAsString() : t;
+            }
+        } catch (RuntimeException notJson) {
+            // keep the raw text
+        }
+        t = redact(t.replaceAll("\\s+", " ").strip());
+        return t.length() > MAX_ERROR_TEXT ? t.substring(0, MAX_ERROR_TEXT) + "…" : t;
+    }
+
+    private String redact(String text) {
+        return key.map(k -> k.redact(text)).orElseGet(() -> new Secret("").redact(text));
+    }
+
+    private static String host(HttpRequest request) {
+        try {
+            URI u = URI.create(request.url());
+            return u.getScheme() + "://" + u.getAuthority();
+        } catch (IllegalArgumentException e) {
+            return "the model service";
+        }
+    }
+
+    static String seconds(Duration d) {
+        return d.toMillis() % 1000 == 0 ? d.toSeconds() + " s" : String.format(Locale.ROOT, "%.1f s", d.toMillis() / 1000.0);
+    }
+
+    @Override
+    public void execute(HttpRequest request, ServerSentEventParser parser, ServerSentEventListener listener) {
+        throw new UnsupportedOperationException("termgate does not stream replies");
+    }
+}

@@ -1,0 +1,170 @@
+package dev.termgate.translate;
+
+import dev.langchain4j.data.message.AiMessage;
+import dev.langchain4j.data.message.ChatMessage;
+import dev.langchain4j.data.message.SystemMessage;
+import dev.langchain4j.data.message.UserMessage;
+import dev.langchain4j.model.chat.ChatModel;
+import dev.langchain4j.model.chat.response.ChatResponse;
+import dev.langchain4j.model.ollama.OllamaChatModel;
+import dev.langchain4j.model.openai.OpenAiChatModel;
+import dev.langchain4j.model.output.TokenUsage;
+import dev.termgate.diag.Diagnostic;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalInt;
+
+/**
+ * A translator backed by a chat model through LangChain4j. A first ask sends the system template (card,
+ * examples) and the question; a re-ask adds the model's last reply and the re-ask template with the exact
+ * diagnostics and ranked candidates, so the model corrects its own answer rather than starting over.
+ */
+public final class ModelTranslator implements Translator {
+
+    /** A placeholder for servers on this machine that take no key (the OpenAI client insists on one). */
+    private static final String NO_KEY = "none";
+
+    private final ChatModel model;
+    private final Prompts prompts;
+    private final Retry retry;
+    private final String name;
+    private final int maxAttempts;
+
+    public ModelTranslator(ChatModel model, String name, Prompts prompts, Retry retry, int maxAttempts) {
+        this.model = model;
+        this.name = name;
+        this.prompts = prompts;
+        this.retry = retry;
+        this.maxAttempts = maxAttempts;
+    }
+
+    /**
+     * @throws IllegalArgumentException when the settings cannot work (offline spec, missing key); the message is
+     *                                  for the user
+     */
+    public static ModelTranslator create(ModelSettings s, Prompts prompts, int maxAttempts) {
+        return new ModelTranslator(chatModel(s), s.spec().toString(), prompts, new Retry(s.maxRetries()), maxAttempts);
+    }
+
+    static ChatModel chatModel(ModelSettings s) {
+        String modelName = s.spec().model();
+        return switch (s.spec().provider()) {
+            case OPENAI -> {
+                if (s.apiKey().isEmpty() && !s.local()) {
+                    throw new IllegalArgumentException("the openai provider needs an API key for " + s.baseUrl()
+                            + ": set TERMGATE_API_KEY (or OPENAI_API_KEY) or api-key in the config file");
+                }
+                yield OpenAiChatModel.builder()
+                        .httpClientBuilder(ModelHttpClient.builder(s.timeout(), s.apiKey(), modelName))
+                        .baseUrl(s.baseUrl())
+                        .apiKey(s.apiKey().map(Secret::reveal).orElse(NO_KEY))
+                        .modelName(modelName)
+                        .timeout(s.timeout())
+                        .maxRetries(0)
+                        .logRequests(false)
+                        .logResponses(false)
+                        .build();
+            }
+            case OLLAMA -> OllamaChatModel.builder()
+                    .httpClientBuilder(ModelHttpClient.builder(s.timeout(), s.apiKey(), modelName))
+                    .baseUrl(s.baseUrl())
+                    .modelName(modelName)
+                    .timeout(s.timeout())
+                    .customHeaders(s.apiKey().map(k -> Map.of("Authorization", "Bearer " + k.reveal())).orElse(Map.of()))
+                    .maxRetries(0)
+                    .logRequests(false)
+                    .logResponses(false)
+                    .build();
+            case OFFLINE -> throw new IllegalArgumentException("the offline interpreter is not a chat model");
+        };
+    }
+
+    @Override
+    public String name() {
+        return name;
+    }
+
+    @Override
+    public Reply translate(TranslationRequest request) {
+        List<ChatMessage> messages = messages(request);
+        ChatResponse response = retry.call(() -> {
+            try {
+                return model.chat(messages);
+            } catch (ServiceFailure f) {
+                throw f;
+            } catch (RuntimeException e) {
+                throw classify(e);
+            }
+        });
+        String text = response.aiMessage() == null || response.aiMessage().text() == null ? "" : response.aiMessage().text();
+        TokenUsage usage = response.tokenUsage();
+        return new Reply(text, Optional.empty(), count(usage == null ? null : usage.inputTokenCount()),
+                count(usage == null ? null : usage.outputTokenCount()));
+    }
+
+    /** The messages of one request; public so that tests and {@code --show-prompt} see exactly what is sent. */
+    public List<ChatMessage> messages(TranslationRequest request) {
+        List<ChatMessage> messages = new ArrayList<>();
+        messages.add(SystemMessage.from(prompts.fill(Prompts.SYSTEM, Map.of(
+                "card", request.card(),
+                "examples", prompts.raw(Prompts.EXAMPLES)))));
+        messages.add(UserMessage.from(prompts.fill(Prompts.ASK, Map.of("question", request.question()))));
+        request.previous().ifPresent(prev -> {
+            // An empty assistant turn is refused by some servers; say what came back instead.
+            messages.add(AiMessage.from(prev.reply().isBlank() ? "(empty reply)" : prev.reply()));
+            messages.add(UserMessage.from(prompts.fill(Prompts.REASK, Map.of(
+                    "question", request.question(),
+                    "previous_query", prev.query().orElse("(no query could be found in your reply)"),
+                    "diagnostics", prev.rendered().isBlank() ? listed(prev.diagnostics()) : prev.rendered(),
+                    "candidates", candidates(prev.diagnostics()),
+                    "attempt", Integer.toString(request.attempt()),
+                    "attempts_left", Integer.toString(Math.max(0, maxAttempts - request.attempt() + 1))))));
+        });
+        return messages;
+    }
+
+    private static String listed(List<Diagnostic> diagnostics) {
+        StringBuilder sb = new StringBuilder();
+        diagnostics.forEach(d -> sb.append(d).append('\n'));
+        return sb.toString();
+    }
+
+    /** The ranked replacements of every diagnostic that has some, as a list the model can pick from. */
+    static String candidates(List<Diagnostic> diagnostics) {
+        StringBuilder sb = new StringBuilder();
+        for (Diagnostic d : diagnostics) {
+            if (d.suggestions().isEmpty()) continue;
+            if (sb.isEmpty()) sb.append("Names from the card that may be meant, best first:\n");
+            sb.append("- instead of the name at ").append(d.span().isNone() ? "(no position)"
+                    : "line " + d.span().startLine() + ":" + d.span().startColumn()).append(": ")
+                    .append(String.join(", ", d.suggestions())).append('\n');
+        }
+        return sb.toString();
+    }
+
+    private static OptionalInt count(Integer n) {
+        return n == null ? OptionalInt.empty() : OptionalInt.of(n);
+    }
+
+    /** LangChain4j's own exceptions (for failures outside our HTTP client), mapped to ours. */
+    static ServiceFailure classify(RuntimeException e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof ServiceFailure f) return f;
+        }
+        String msg = String.valueOf(e.getMessage());
+        if (e instanceof dev.langchain4j.exception.RetriableException) {
+            return new ServiceFailure(ServiceFailure.Kind.RETRIABLE, msg, Optional.empty());
+        }
+        if (e instanceof dev.langchain4j.exception.AuthenticationException) {
+            return new ServiceFailure(ServiceFailure.Kind.AUTHENTICATION, "the provider refused the API key", Optional.empty());
+        }
+        if (e instanceof dev.langchain4j.exception.ModelNotFoundException) {
+            return new ServiceFailure(ServiceFailure.Kind.MODEL_NOT_FOUND, "the provider does not know the model", Optional.empty());
+        }
+        return new ServiceFailure(ServiceFailure.Kind.FATAL, "the model client failed: "
+                + new Secret("").redact(msg.length() > 300 ? msg.substring(0, 300) + "…" : msg), Optional.empty());
+    }
+}

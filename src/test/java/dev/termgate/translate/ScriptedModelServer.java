@@ -1,0 +1,213 @@
+package dev.termgate.translate;
+
+import com.google.gson.JsonArray;
+import com.google.gson.JsonObject;
+import com.google.gson.JsonParser;
+import com.sun.net.httpserver.HttpExchange;
+import com.sun.net.httpserver.HttpServer;
+
+import java.io.IOException;
+import java.io.OutputStream;
+import java.net.InetSocketAddress;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.CopyOnWriteArrayList;
+import java.util.concurrent.Executors;
+import java.util.function.Function;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * A model server for tests, on 127.0.0.1: speaks the OpenAI-compatible chat completions protocol
+ * ({@code POST /v1/chat/completions}) or the Ollama chat protocol ({@code POST /api/chat}, not streamed) and
+ * answers from a script. Message shapes follow the public protocol descriptions (from memory: OpenAI's
+ * "choices[0].message.content" and "usage"; Ollama's "message.content", "prompt_eval_count", "eval_count").
+ */
+public final class ScriptedModelServer implements AutoCloseable {
+
+    public enum Protocol { OPENAI, OLLAMA }
+
+    /** One request as the server saw it. */
+    public record Seen(String path, JsonObject body, Map<String, List<String>> headers) {
+        /** Every message's text, joined. */
+        public String allText() {
+            StringBuilder sb = new StringBuilder();
+            for (var m : body.getAsJsonArray("messages")) {
+                var c = m.getAsJsonObject().get("content");
+                sb.append(c == null || c.isJsonNull() ? "" : c.isJsonPrimitive() ? c.getAsString() : c.toString()).append('\n');
+            }
+            return sb.toString();
+        }
+
+        public int messageCount() {
+            return body.getAsJsonArray("messages").size();
+        }
+
+        public String lastUserText() {
+            JsonArray ms = body.getAsJsonArray("messages");
+            for (int i = ms.size() - 1; i >= 0; i--) {
+                var m = ms.get(i).getAsJsonObject();
+                if (m.get("role").getAsString().equals("user")) return m.get("content").getAsString();
+            }
+            return "";
+        }
+
+        private static final Pattern QUESTION = Pattern.compile("(?m)^Question: (.*)$");
+
+        /** The question of the request (the first user message's "Question:" line, as the built-in template writes it). */
+        public String question() {
+            JsonArray ms = body.getAsJsonArray("messages");
+            for (var e : ms) {
+                var m = e.getAsJsonObject();
+                if (m.get("role").getAsString().equals("user")) {
+                    Matcher x = QUESTION.matcher(m.get("content").getAsString());
+                    if (x.find()) return x.group(1).strip();
+                }
+            }
+            return "";
+        }
+
+        /** 1 for a first ask, 2 for the first re-ask, … */
+        public int attempt() {
+            return (messageCount() - 2) / 2 + 1;
+        }
+    }
+
+    /** What the server does with one request. */
+    public sealed interface Action {
+        record Answer(String text, int promptTokens, int completionTokens) implements Action {}
+        record Status(int code, String body, Map<String, String> headers) implements Action {}
+        record Delay(long millis, Action then) implements Action {}
+    }
+
+    public static Action answer(String text) {
+        return new Action.Answer(text, 100, 20);
+    }
+
+    public static Action status(int code, String body, Map<String, String> headers) {
+        return new Action.Status(code, body, headers);
+    }
+
+    public static Action delay(long millis, Action then) {
+        return new Action.Delay(millis, then);
+    }
+
+    private final HttpServer server;
+    private final Protocol protocol;
+    private final List<Seen> seen = new CopyOnWriteArrayList<>();
+    private volatile Function<Seen, Action> script;
+
+    public ScriptedModelServer(Protocol protocol, Function<Seen, Action> script) throws IOException {
+        this.protocol = protocol;
+        this.script = script;
+        server = HttpServer.create(new InetSocketAddress("127.0.0.1", 0), 64);
+        server.setExecutor(Executors.newFixedThreadPool(32, r -> {
+            Thread t = new Thread(r, "scripted-model");
+            t.setDaemon(true);
+            return t;
+        }));
+        server.createContext(protocol == Protocol.OPENAI ? "/v1/chat/completions" : "/api/chat", this::handle);
+        server.start();
+    }
+
+    public void script(Function<Seen, Action> s) {
+        this.script = s;
+    }
+
+    /** The base URL to give {@code --base-url}. */
+    public String baseUrl() {
+        String root = "http://127.0.0.1:" + server.getAddress().getPort();
+        return protocol == Protocol.OPENAI ? root + "/v1" : root;
+    }
+
+    public String modelOption(String model) {
+        return (protocol == Protocol.OPENAI ? "openai:" : "ollama:") + model;
+    }
+
+    public List<Seen> seen() {
+        return new ArrayList<>(seen);
+    }
+
+    private void handle(HttpExchange x) throws IOException {
+        try (x) {
+            String body = new String(x.getRequestBody().readAllBytes(), StandardCharsets.UTF_8);
+            Seen s = new Seen(x.getRequestURI().getPath(), JsonParser.parseString(body).getAsJsonObject(), x.getRequestHeaders());
+            seen.add(s);
+            Action a = script.apply(s);
+            while (a instanceof Action.Delay d) {
+                try {
+                    Thread.sleep(d.millis());
+                } catch (InterruptedException e) {
+                    return;
+                }
+                a = d.then();
+            }
+            if (a instanceof Action.Status st) {
+                st.headers().forEach((k, v) -> x.getResponseHeaders().add(k, v));
+                send(x, st.code(), st.body());
+            } else if (a instanceof Action.Answer an) {
+                x.getResponseHeaders().add("Content-Type", "application/json");
+                send(x, 200, protocol == Protocol.OPENAI ? openAi(s, an) : ollama(s, an));
+            }
+        } catch (IOException e) {
+            // the client went away (a time-out test): nothing to answer
+        }
+    }
+
+    private static void send(HttpExchange x, int code, String body) throws IOException {
+        byte[] b = body.getBytes(StandardCharsets.UTF_8);
+        x.sendResponseHeaders(code, b.length == 0 ? -1 : b.length);
+        if (b.length > 0) {
+            try (OutputStream o = x.getResponseBody()) {
+                o.write(b);
+            }
+        }
+    }
+
+    private static String openAi(Seen s, Action.Answer a) {
+        JsonObject msg = new JsonObject();
+        msg.addProperty("role", "assistant");
+        msg.addProperty("content", a.text());
+        JsonObject choice = new JsonObject();
+        choice.addProperty("index", 0);
+        choice.add("message", msg);
+        choice.addProperty("finish_reason", "stop");
+        JsonArray choices = new JsonArray();
+        choices.add(choice);
+        JsonObject usage = new JsonObject();
+        usage.addProperty("prompt_tokens", a.promptTokens());
+        usage.addProperty("completion_tokens", a.completionTokens());
+        usage.addProperty("total_tokens", a.promptTokens() + a.completionTokens());
+        JsonObject o = new JsonObject();
+        o.addProperty("id", "chatcmpl-test");
+        o.addProperty("object", "chat.completion");
+        o.addProperty("created", 0);
+        o.addProperty("model", s.body().get("model").getAsString());
+        o.add("choices", choices);
+        o.add("usage", usage);
+        return o.toString();
+    }
+
+    private static String ollama(Seen s, Action.Answer a) {
+        JsonObject msg = new JsonObject();
+        msg.addProperty("role", "assistant");
+        msg.addProperty("content", a.text());
+        JsonObject o = new JsonObject();
+        o.addProperty("model", s.body().get("model").getAsString());
+        o.addProperty("created_at", "2026-01-01T00:00:00Z");
+        o.add("message", msg);
+        o.addProperty("done", true);
+        o.addProperty("done_reason", "stop");
+        o.addProperty("prompt_eval_count", a.promptTokens());
+        o.addProperty("eval_count", a.completionTokens());
+        return o.toString();
+    }
+
+    @Override
+    public void close() {
+        server.stop(0);
+        ((java.util.concurrent.ExecutorService) server.getExecutor()).shutdownNow();
+    }
+}
