@@ -89,6 +89,8 @@ public enum Code {
     UNSUPPORTED_DOMAIN(6007, Severity.WARNING, "%s has a %s that is not a class or a union of classes; it is treated as any class"),
     UNKNOWN_DATA_TERM(6008, Severity.WARNING, "%s is not defined by the ontology; %d statement(s) not imported"),
     IMPORT_NOT_LOADED(6009, Severity.WARNING, "%s imports %s, which is not among the sources given; it was not fetched"),
+    DATA_KIND_MISMATCH(6011, Severity.WARNING, "%s is a %s, but %d statement(s) give it %s; they were not imported"),
+    BAD_DATA_VALUE(6012, Severity.WARNING, "%d value(s) of %s are not valid %s (e.g. '%s'); they were kept as text"),
     MIXED_RANGE(6010, Severity.INFO, "%d propert(ies) have both literal and class ranges and are both a property key and a relationship type (e.g. %s)"),
 
     // ---- TG7xxx translation ----
