@@ -32,6 +32,10 @@ public enum Code {
     TOO_DEEP(1010, Severity.ERROR, "the query nests deeper than %d levels"),
     TOO_LONG(1011, Severity.ERROR, "the query is longer than %d characters"),
     UNTERMINATED_COMMENT(1012, Severity.ERROR, "block comment is not terminated"),
+    INTEGER_OVERFLOW(1013, Severity.ERROR, "integer literal '%s' does not fit in 64 bits"),
+    FLOAT_OVERFLOW(1014, Severity.ERROR, "float literal '%s' is too large"),
+    PATTERN_NOT_ALLOWED(1015, Severity.ERROR, "a pattern can only be a predicate here: use it in WHERE or inside exists(…), or write a pattern comprehension [%s | …]"),
+    UNTERMINATED_NAME(1016, Severity.ERROR, "backtick-quoted name is not terminated"),
 
     // ---- TG2xxx scope and typing ----
     UNDEFINED_VARIABLE(2001, Severity.ERROR, "variable '%s' is not defined"),

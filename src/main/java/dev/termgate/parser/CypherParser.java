@@ -1,0 +1,102 @@
+package dev.termgate.parser;
+
+import dev.termgate.diag.Code;
+import dev.termgate.diag.Diagnostic;
+import dev.termgate.parser.antlr.CypherLexer;
+import dev.termgate.parser.antlr.CypherParser.StatementContext;
+import dev.termgate.query.Query;
+import org.antlr.v4.runtime.BailErrorStrategy;
+import org.antlr.v4.runtime.CharStreams;
+import org.antlr.v4.runtime.CommonTokenStream;
+import org.antlr.v4.runtime.atn.PredictionMode;
+import org.antlr.v4.runtime.misc.ParseCancellationException;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * The one entry to the openCypher grammar: text in, a syntax tree or syntax diagnostics out. Stateless and
+ * thread-safe (each call makes its own lexer and parser; ANTLR's prediction cache is shared and synchronized).
+ * Never throws on bad input: every fault becomes a {@link Diagnostic} in the TG1xxx band.
+ *
+ * <pre>{@code
+ * ParseResult r = new CypherParser().parse("MATCH (n:Vessel) RETURN n.name");
+ * if (r.isValid()) use(r.tree()); else System.err.print(r.render());
+ * }</pre>
+ */
+public final class CypherParser {
+
+    /** Longer input is refused before lexing; model-written queries are a few hundred characters. */
+    public static final int MAX_LENGTH = 100_000;
+    /** Deeper bracket nesting is refused before parsing, because ANTLR recurses once or more per level. */
+    public static final int MAX_DEPTH = 100;
+
+    private final int maxLength;
+    private final int maxDepth;
+
+    public CypherParser() {
+        this(MAX_LENGTH, MAX_DEPTH);
+    }
+
+    /** With other limits (for tests and for callers that know their input). */
+    public CypherParser(int maxLength, int maxDepth) {
+        this.maxLength = maxLength;
+        this.maxDepth = maxDepth;
+    }
+
+    /** Parses one statement (an optional trailing semicolon is allowed). */
+    public ParseResult parse(String text) {
+        if (text == null) text = "";
+        if (text.length() > maxLength) {
+            SourceMap head = new SourceMap(text.substring(0, 1));
+            return ParseResult.failure(text, List.of(Diagnostic.at(Code.TOO_LONG, head.span(0, 0), maxLength)));
+        }
+        SourceMap map = new SourceMap(text);
+        List<Diagnostic> early = Prescan.check(map, maxDepth);
+        if (!early.isEmpty()) return ParseResult.failure(text, early);
+        try {
+            return parseChecked(text, map);
+        } catch (StackOverflowError e) {
+            // A last guard: long chains of prefix operators (NOT NOT NOT …) also recurse without brackets.
+            return ParseResult.failure(text, List.of(Diagnostic.at(Code.TOO_DEEP, map.span(0, 0), maxDepth)));
+        }
+    }
+
+    private ParseResult parseChecked(String text, SourceMap map) {
+        CypherLexer lexer = new CypherLexer(CharStreams.fromString(text));
+        lexer.removeErrorListeners();
+        CommonTokenStream tokens = new CommonTokenStream(lexer);
+        dev.termgate.parser.antlr.CypherParser parser = new dev.termgate.parser.antlr.CypherParser(tokens);
+        parser.removeErrorListeners();
+        StatementContext tree;
+        // Two stages: the fast SLL prediction with bail-out, and full LL only when SLL fails (then either the text
+        // is wrong, and LL gives the exact error, or SLL was too weak for it).
+        parser.getInterpreter().setPredictionMode(PredictionMode.SLL);
+        parser.setErrorHandler(new BailErrorStrategy());
+        try {
+            tree = parser.statement();
+        } catch (ParseCancellationException sllFailed) {
+            tokens.seek(0);
+            parser.reset();
+            parser.getInterpreter().setPredictionMode(PredictionMode.LL);
+            parser.setErrorHandler(new SyntaxErrors.Strategy());
+            SyntaxErrors.Listener listener = new SyntaxErrors.Listener(map);
+            parser.addErrorListener(listener);
+            try {
+                tree = parser.statement();
+            } catch (ParseCancellationException llFailed) {
+                tree = null;
+            }
+            if (!listener.diagnostics.isEmpty()) return ParseResult.failure(text, listener.diagnostics);
+            if (tree == null) {
+                return ParseResult.failure(text, List.of(Diagnostic.at(Code.SYNTAX_ERROR, map.span(0, 0), "syntax error")));
+            }
+        }
+        TreeBuilder builder = new TreeBuilder(map);
+        Query query = builder.statement(tree);
+        List<Diagnostic> problems = new ArrayList<>(builder.diagnostics);
+        problems.addAll(PatternPlacement.check(query));
+        if (!problems.isEmpty()) return ParseResult.failure(text, problems);
+        return ParseResult.success(text, query);
+    }
+}
