@@ -70,7 +70,7 @@ public final class AskCommand implements Callable<Integer> {
         RunLimits limits = graph.limits();
         Pipeline pipeline = AskWiring.open(factory, graph.spec());
         try {
-            Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline.schema());
+            Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts), pipeline.runner());
             Answer answer;
             try {

@@ -28,6 +28,12 @@ final class AskWiring {
         }
     }
 
+    static Translator translator(ModelSettings settings, Prompts prompts, int attempts, Pipeline pipeline) {
+        // --model offline and no --model: the built-in interpreter, profiling the pipeline's graph.
+        if (settings.spec().offline()) return dev.termgate.interpret.OfflineTranslator.forPipeline(pipeline);
+        return translator(settings, prompts, attempts, pipeline.schema());
+    }
+
     static Translator translator(ModelSettings settings, Prompts prompts, int attempts, GraphSchema schema) {
         try {
             return Translators.create(settings, prompts, attempts, schema);

@@ -88,7 +88,7 @@ public final class BatchCommand implements Callable<Integer> {
             }
             Pipeline pipeline = AskWiring.open(factory, graph.spec());
             try {
-                Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline.schema());
+                Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
                 Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts),
                         pipeline.runner());
                 BatchRun.Summary s;

@@ -55,10 +55,11 @@ public final class ShellCommand implements Callable<Integer> {
         var limits = graph.limits();
         Pipeline pipeline = AskWiring.open(factory, graph.spec());
         try (Terminal terminal = TerminalBuilder.builder().name("termgate").system(true).build()) {
-            Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline.schema());
+            Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             ShellState.TranslatorMaker maker = spec -> {
                 var s = model.settingsFor(spec);
-                return dev.termgate.translate.Translators.create(s, prompts, model.attempts, pipeline.schema());
+                return s.spec().offline() ? dev.termgate.interpret.OfflineTranslator.forPipeline(pipeline)
+                        : dev.termgate.translate.Translators.create(s, prompts, model.attempts, pipeline.schema());
             };
             Optional<Path> hist = noHistory ? Optional.empty() : Optional.of(history != null ? history : defaultHistory(model.env));
             new Shell(terminal, new ShellState(pipeline, translator, maker, model.attempts, limits), hist).run();
