@@ -1,0 +1,97 @@
+package dev.termgate.interpret;
+
+import dev.termgate.ontology.InstanceReader;
+import dev.termgate.ontology.OntologyLoader;
+import dev.termgate.schema.GraphSchema;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+
+import java.util.List;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+/**
+ * The interpreter's readings of dev questions of the demo set (never holdout ones), as query text. Execution
+ * accuracy against the gold queries is measured in {@code InterpreterAccuracyTest}; this test pins the
+ * pieces: values, periods, units, shapes and declining.
+ */
+class InterpreterTest {
+
+    static Interpreter interpreter;
+
+    @BeforeAll
+    static void load() {
+        GraphSchema schema = OntologyLoader.load(List.of()).schema();
+        DataProfile profile = DataProfiles.of(InstanceReader.read("classpath:examples/maritime/data.ttl", schema), schema);
+        interpreter = Interpreter.create(schema, profile);
+    }
+
+    static String q(String question) {
+        Interpretation i = interpreter.interpret(question);
+        assertTrue(i.understood(), () -> question + " → " + i.notUnderstood() + " " + i.evidence());
+        return i.query().orElseThrow();
+    }
+
+    @Test
+    void countsAClass() {
+        assertEquals("MATCH (v:Vessel) RETURN count(DISTINCT v) AS count", q("How many vessels are there in total?"));
+    }
+
+    @Test
+    void valueOfANameConnectsThroughTheOntology() {
+        assertEquals("MATCH (p:Port)-[:IN_COUNTRY]->(c:Country) WHERE c.name = 'Valdoria' RETURN DISTINCT p.name",
+                q("List all ports in Valdoria."));
+    }
+
+    @Test
+    void yearsAgainstAnIntegerYearProperty() {
+        assertEquals("MATCH (v:Vessel) WHERE v.yearBuilt < 2005 RETURN v.name, v.yearBuilt", q("Which ships were built before 2005?"));
+    }
+
+    @Test
+    void tonnesAgainstKilograms() {
+        assertTrue(q("Which containerised shipments weigh more than 50 tonnes?").contains("s.weightKg > 50000"));
+    }
+
+    @Test
+    void periodsBecomeRanges() {
+        String query = q("Which customs declarations were lodged in the second half of 2024?");
+        assertTrue(query.contains(".lodgedAt >= datetime('2024-07-01T00:00:00Z')"), query);
+        assertTrue(query.contains(".lodgedAt < datetime('2025-01-01T00:00:00Z')"), query);
+    }
+
+    @Test
+    void superlativeCountsPerAnswer() {
+        assertEquals("MATCH (v:Vessel)-[:OPERATED_BY]->(c:Carrier) RETURN c.name, count(DISTINCT v) AS count ORDER BY count DESC LIMIT 1",
+                q("Which carrier operates the most vessels?"));
+    }
+
+    @Test
+    void negationBecomesNotExists() {
+        assertEquals("MATCH (c:CustomsDeclaration) WHERE NOT EXISTS { MATCH (c)-[:FILED_BY]->(c2:CustomsBroker) } RETURN c.declarationNumber",
+                q("Which declarations were lodged without a customs broker?"));
+    }
+
+    @Test
+    void declinesWhatTheOntologyDoesNotCover() {
+        for (String question : List.of("What will the weather be like tomorrow?", "Tell me a joke.", "", "42")) {
+            Interpretation i = interpreter.interpret(question);
+            assertFalse(i.understood(), question + " → " + i.query());
+            assertTrue(i.notUnderstood().isPresent());
+        }
+    }
+
+    @Test
+    void numbersAndPeriodsAreRead() {
+        var qs = Quantities.find(Words.tokens("over 100,000 tonnes in December 2024 at least 60"));
+        assertEquals(3, qs.size());
+        assertEquals(100_000, qs.get(0).value());
+        assertEquals(Quantities.Op.GT, qs.get(0).op());
+        assertEquals("ton", qs.get(0).unit());
+        assertEquals(java.time.LocalDate.of(2024, 12, 1), qs.get(1).start());
+        assertEquals(java.time.LocalDate.of(2025, 1, 1), qs.get(1).end());
+        assertEquals(Quantities.Op.GE, qs.get(2).op());
+    }
+}
