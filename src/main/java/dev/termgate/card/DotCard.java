@@ -76,6 +76,7 @@ public final class DotCard {
         for (String k : keys) {
             PropertyKey key = schema.properties().get(k);
             sb.append("<BR ALIGN=\"LEFT\"/>").append(html(k)).append(": ").append(key.valueType().word());
+            if (key.info().deprecated()) sb.append(" (deprecated)");
         }
         if (!keys.isEmpty()) sb.append("<BR ALIGN=\"LEFT\"/>");
         return sb.toString();
