@@ -32,6 +32,16 @@ public final class TokenCounter {
         }
     }
 
+    /**
+     * Starts loading the encoding on a background thread and returns at once, so that a command can read its
+     * ontology meanwhile; {@link #of} then waits for that load instead of starting another.
+     */
+    public static void loadInBackground(TokenEncoding encoding) {
+        Thread t = new Thread(() -> of(encoding), "termgate-tokenizer-" + encoding.id());
+        t.setDaemon(true);
+        t.start();
+    }
+
     public TokenEncoding encoding() {
         return encoding;
     }

@@ -7,6 +7,7 @@ import dev.termgate.card.CardTerm;
 import dev.termgate.card.Cards;
 import dev.termgate.card.DotCard;
 import dev.termgate.card.Graphviz;
+import dev.termgate.card.TokenCounter;
 import dev.termgate.card.TokenEncoding;
 import dev.termgate.link.Linkers;
 import dev.termgate.link.Linking;
@@ -89,6 +90,8 @@ public final class CardCommand implements Callable<Integer> {
         if (budget < 1) throw new UserError(Exit.USAGE, "--budget must be a positive number of tokens, not " + budget);
         if (why && !forQuestion) throw new UserError(Exit.USAGE, "--why explains the terms chosen for a question; add --question");
 
+        // Both take a few hundred milliseconds from a cold start; on two cores they overlap.
+        TokenCounter.loadInBackground(encoding);
         GraphSchema schema = ontology.schema(err);
         Card card = forQuestion ? questionCard(schema) : Cards.whole(schema, encoding);
 
