@@ -55,6 +55,10 @@ public enum Code {
     INVALID_CLAUSE_ORDER(2015, Severity.ERROR, "%s"),
     NEGATIVE_INTEGER(2016, Severity.ERROR, "%s must be a non-negative integer"),
     INVALID_DELETE(2017, Severity.ERROR, "%s"),
+    NON_CONSTANT_EXPRESSION(2018, Severity.ERROR, "%s must be a constant; it refers to variable '%s'"),
+    AMBIGUOUS_AGGREGATION(2019, Severity.ERROR, "'%s' is used beside an aggregation but is not a grouping key; project it on its own"),
+    INVALID_PARAMETER_USE(2020, Severity.ERROR, "a parameter cannot stand for the property map of a pattern in MATCH"),
+    MIXED_UNION(2021, Severity.ERROR, "UNION and UNION ALL cannot be mixed in one query"),
 
     // ---- TG3xxx ontology terms ----
     UNKNOWN_LABEL(3001, Severity.ERROR, "label '%s' is not defined by the ontology"),
@@ -74,6 +78,11 @@ public enum Code {
     PROCEDURE_CALL(4002, Severity.ERROR, "CALL %s runs a procedure; only read queries without procedures are run"),
     LOAD_CSV(4003, Severity.ERROR, "LOAD CSV reads outside data; only read queries over the graph are run"),
     SUBQUERY_CALL(4004, Severity.ERROR, "CALL { … } subqueries are not run; write the query without them"),
+    MERGE_CLAUSE(4005, Severity.ERROR, "MERGE may create data; only read queries are run"),
+    SET_CLAUSE(4006, Severity.ERROR, "SET changes data; only read queries are run"),
+    REMOVE_CLAUSE(4007, Severity.ERROR, "REMOVE changes data; only read queries are run"),
+    DELETE_CLAUSE(4008, Severity.ERROR, "%s deletes data; only read queries are run"),
+    FOREACH_CLAUSE(4009, Severity.ERROR, "FOREACH runs updates; only read queries are run"),
 
     // ---- TG5xxx running ----
     TIMEOUT(5001, Severity.ERROR, "the query ran longer than %s and was stopped"),
