@@ -97,9 +97,15 @@ final class ScopeCheck implements Check {
                     declare(u.alias(), elem, scope);
                 } else if (c instanceof Clause.With w) {
                     Map<String, Binding> next = projection(w.projection(), scope, true).visible();
+                    // WHERE of a WITH still sees the variables before it, unless an aggregation dropped them
+                    // (openCypher TCK, WithWhere1 and WithWhere7).
+                    Map<String, Binding> whereScope = new LinkedHashMap<>();
+                    boolean aggregating = w.projection().items().stream().anyMatch(it -> containsAggregate(it.expr()));
+                    if (!aggregating) whereScope.putAll(scope);
+                    whereScope.putAll(next);
                     scope.clear();
                     scope.putAll(next);
-                    w.where().ifPresent(x -> predicate(x, scope));
+                    w.where().ifPresent(x -> predicate(x, whereScope));
                 } else if (c instanceof Clause.Return r) {
                     Projected next = projection(r.projection(), scope, false);
                     columns = r.projection().star() ? null : next.columns();
@@ -191,7 +197,7 @@ final class ScopeCheck implements Check {
                     if (!binds) undefined(v, scope);
                     b = new Binding(v.name(), Type.NODE);
                     if (binds) scope.put(v.name(), b);
-                } else if (b.type != Type.NODE && b.type != Type.ANY) {
+                } else if (b.type != Type.NODE && b.type != Type.ANY && b.type != Type.NULL) {
                     cx.report(Diagnostic.of(Code.VARIABLE_TYPE_CONFLICT, v, v.name(), b.type.word(), "node"));
                 }
                 cx.bind(v, b);
@@ -217,7 +223,8 @@ final class ScopeCheck implements Check {
                     }
                 } else if (relsHere.contains(v.name())) {
                     cx.report(Diagnostic.of(Code.VARIABLE_ALREADY_BOUND, v, v.name()));
-                } else if (b.type != want && b.type != Type.ANY && !(b.type == Type.LIST && want == Type.REL_LIST)) {
+                } else if (b.type != want && b.type != Type.ANY && b.type != Type.NULL
+                        && !(b.type == Type.LIST && want == Type.REL_LIST)) {
                     cx.report(Diagnostic.of(Code.VARIABLE_TYPE_CONFLICT, v, v.name(), b.type.word(), want.word()));
                 }
                 cx.bind(v, b);
@@ -260,21 +267,21 @@ final class ScopeCheck implements Check {
             }
             boolean aggregating = false;
             for (Clause.ProjectionItem item : p.items()) aggregating |= containsAggregate(item.expr());
-            Set<String> groupingVariables = new HashSet<>();
-            if (p.star()) groupingVariables.addAll(scope.keySet());
+            // Beside an aggregation only grouping keys that are a variable or a property of one may appear
+            // (openCypher TCK, ReturnOrderBy6 / Return6 / With6: AmbiguousAggregationExpression).
+            Set<Object> groupingKeys = new HashSet<>();
+            if (p.star()) scope.keySet().forEach(n -> groupingKeys.add(n));
             for (Clause.ProjectionItem item : p.items()) {
-                if (!containsAggregate(item.expr()) && item.expr() instanceof Expr.Variable v) groupingVariables.add(v.name());
+                if (containsAggregate(item.expr())) continue;
+                if (item.expr() instanceof Expr.Variable v) groupingKeys.add(v.name());
+                else if (item.expr() instanceof Expr.Property pr && pr.target() instanceof Expr.Variable) {
+                    groupingKeys.add(Trees.stripSpans(pr));
+                }
             }
             Set<String> names = new LinkedHashSet<>();
             for (Clause.ProjectionItem item : p.items()) {
                 Type t = expr(item.expr(), scope, new Place(clause, true, false));
-                if (aggregating && containsAggregate(item.expr())) {
-                    for (Expr.Variable v : freeOutsideAggregates(item.expr())) {
-                        if (!groupingVariables.contains(v.name()) && scope.containsKey(v.name())) {
-                            cx.report(Diagnostic.of(Code.AMBIGUOUS_AGGREGATION, v, v.name()));
-                        }
-                    }
-                }
+                if (aggregating && containsAggregate(item.expr())) ambiguous(item.expr(), groupingKeys, scope);
                 String name = item.alias().map(Expr.Variable::name)
                         .orElse(item.expr() instanceof Expr.Variable v ? v.name() : null);
                 if (name == null) {
@@ -321,6 +328,31 @@ final class ScopeCheck implements Check {
                 }
             }
             return new Projected(visible, columns);
+        }
+
+        /** Reports variables beside an aggregation that are not grouping keys (nor inside one). */
+        private void ambiguous(Expr e, Set<Object> keys, Map<String, Binding> scope) {
+            if (isAggregate(e)) return;
+            if (e instanceof Expr.Property pr && pr.target() instanceof Expr.Variable && keys.contains(Trees.stripSpans(pr))) return;
+            if (e instanceof Expr.Variable v) {
+                if (!keys.contains(v.name()) && scope.containsKey(v.name())) {
+                    cx.report(Diagnostic.of(Code.AMBIGUOUS_AGGREGATION, v, v.name()));
+                }
+                return;
+            }
+            if (e instanceof Expr.ListComprehension || e instanceof Expr.Quantified || e instanceof Expr.Reduce
+                    || e instanceof Expr.PatternComprehension || e instanceof Expr.ExistsSubquery
+                    || e instanceof Expr.CountSubquery) {
+                return;
+            }
+            for (Node c : Trees.children(e)) {
+                if (c instanceof Expr x) ambiguous(x, keys, scope);
+                else if (c instanceof Expr.MapEntry m) ambiguous(m.value(), keys, scope);
+                else if (c instanceof Expr.CaseWhen w) {
+                    ambiguous(w.when(), keys, scope);
+                    ambiguous(w.then(), keys, scope);
+                }
+            }
         }
 
         private void orderExpr(Expr e, Map<String, Binding> scope, List<Expr> projected, String dropper, Place place) {
