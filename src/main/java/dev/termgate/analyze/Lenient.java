@@ -22,7 +22,7 @@ import java.util.Set;
  * them).
  *
  * <p>Tiers (scores) — common practice, spaced by {@link Fix#CLEAR_MARGIN} so a better tier is "clearly ahead":
- * same name up to case and separators 1.0; a term whose rdfs:label or skos:prefLabel reads the same 0.9;
+ * same name up to case and separators 1.0; a term whose rdfs:label, skos:prefLabel or IRI local name reads the same 0.9;
  * a skos:altLabel synonym 0.85; edit distance 1: 0.8; edit distance 2: 0.7; a label within edit distance 1: 0.65.
  */
 final class Lenient {
@@ -40,7 +40,8 @@ final class Lenient {
     Lenient(Collection<TermInfo> terms) {
         for (TermInfo t : terms) {
             addExact(Names.normalize(t.name()), t.name(), 1.0, "same name up to case and separators");
-            addExact(Names.normalize(t.localName()), t.name(), 1.0, "same name up to case and separators");
+            // The IRI's local name ranks with labels: when names collide, another term may own it.
+            addExact(Names.normalize(t.localName()), t.name(), 0.9, "its IRI ends in '" + t.localName() + "'");
             for (LangString l : t.labels()) {
                 addExact(Names.normalize(l.text()), t.name(), 0.9, "its label is \"" + l.text() + "\"");
             }

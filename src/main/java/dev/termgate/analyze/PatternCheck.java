@@ -194,7 +194,7 @@ final class PatternCheck implements Check {
             if (dir != Pattern.Direction.BOTH && firstPair(e, from, to, flip(dir)) != null) {
                 wrongDirection(e, describe(e.toNode(), e.to(), to), describe(e.fromNode(), e.from(), from), from, to);
             } else {
-                cx.report(Diagnostic.of(Code.ENDPOINTS_NOT_ALLOWED, e.rel(), typeNames(e),
+                cx.report(Diagnostic.of(Code.ENDPOINTS_NOT_ALLOWED, e.rel(), plainTypeNames(e),
                         describe(dir == Pattern.Direction.INCOMING ? e.toNode() : e.fromNode(),
                                 dir == Pattern.Direction.INCOMING ? e.to() : e.from(),
                                 dir == Pattern.Direction.INCOMING ? to : from),
@@ -211,7 +211,7 @@ final class PatternCheck implements Check {
             String arrow = r.direction() == Pattern.Direction.OUTGOING ? "-->" : "<--";
             String back = r.direction() == Pattern.Direction.OUTGOING ? "<--" : "-->";
             fixes.add(new Candidate(FixKind.FLIP_DIRECTION, r, n -> flipped((Pattern.RelPattern) n), arrow, back,
-                    "'" + typeNames(e).replace("'", "") + "' goes from " + start + " to " + end, 1.0));
+                    "'" + plainTypeNames(e) + "' goes from " + start + " to " + end, 1.0));
             if (e.types().size() == 1) {
                 cx.schema.relType(e.types().get(0).name()).flatMap(t -> t.inverseOf()).ifPresent(inv -> {
                     if (cx.schema.relTypes().containsKey(inv)
@@ -222,7 +222,7 @@ final class PatternCheck implements Check {
                     }
                 });
             }
-            cx.report(Diagnostic.of(Code.WRONG_DIRECTION, r, typeNames(e).replace("'", ""), start, end), fixes);
+            cx.report(Diagnostic.of(Code.WRONG_DIRECTION, r, plainTypeNames(e), start, end), fixes);
         }
 
         private static Pattern.RelPattern flipped(Pattern.RelPattern r) {
@@ -362,8 +362,9 @@ final class PatternCheck implements Check {
             return b.anonymous() ? "a node" : "'" + b.name + "'";
         }
 
-        private static String typeNames(Edge e) {
-            return Quote.orList(e.types().stream().map(LabelExpr.Name::name).toList());
+        /** {@code A|B}: the message template quotes it. */
+        private static String plainTypeNames(Edge e) {
+            return String.join("|", e.types().stream().map(LabelExpr.Name::name).toList());
         }
     }
 }

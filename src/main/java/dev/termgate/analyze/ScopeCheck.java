@@ -395,7 +395,7 @@ final class ScopeCheck implements Check {
             } else if (e instanceof Expr.FloatLit || e instanceof Expr.StringLit || e instanceof Expr.BooleanLit
                     || e instanceof Expr.ListLit || e instanceof Expr.MapLit
                     || e instanceof Expr.Unary u2 && u2.operand() instanceof Expr.FloatLit) {
-                cx.report(Diagnostic.of(Code.INVALID_ARGUMENT_TYPE, e, what + " needs an integer, not a " + typeOf(e).word()));
+                cx.report(Diagnostic.of(Code.INVALID_ARGUMENT_TYPE, e, what + " needs an integer, not " + typeOf(e).withArticle()));
             }
         }
 
@@ -404,7 +404,7 @@ final class ScopeCheck implements Check {
         private void predicate(Expr e, Map<String, Binding> scope) {
             Type t = expr(e, scope, Place.WHERE);
             if (t.notBoolean()) {
-                cx.report(Diagnostic.of(Code.INVALID_ARGUMENT_TYPE, e, "WHERE needs a boolean, found a " + t.word()));
+                cx.report(Diagnostic.of(Code.INVALID_ARGUMENT_TYPE, e, "WHERE needs a boolean, found " + t.withArticle()));
             }
         }
 
@@ -589,7 +589,7 @@ final class ScopeCheck implements Check {
         }
 
         private void wrongType(Expr e, String what, Type found) {
-            cx.report(Diagnostic.of(Code.INVALID_ARGUMENT_TYPE, e, what + ", found a " + found.word()));
+            cx.report(Diagnostic.of(Code.INVALID_ARGUMENT_TYPE, e, what + ", found " + found.withArticle()));
         }
 
         private Type binary(Expr.Binary b, Map<String, Binding> scope, Place place) {

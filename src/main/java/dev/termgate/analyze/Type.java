@@ -19,6 +19,11 @@ enum Type {
         return word;
     }
 
+    /** The word with its indefinite article, for messages. */
+    String withArticle() {
+        return (word.matches("^[aeiou].*") ? "an " : "a ") + word;
+    }
+
     boolean isNumber() {
         return this == INTEGER || this == FLOAT;
     }
