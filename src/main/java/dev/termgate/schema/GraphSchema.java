@@ -34,7 +34,9 @@ public final class GraphSchema {
     private final Map<String, Set<String>> subClosure = new LinkedHashMap<>();
     private final Map<String, Set<String>> relSuperClosure = new LinkedHashMap<>();
     private final Map<String, Set<String>> relSubClosure = new LinkedHashMap<>();
-    private final Map<String, Set<String>> propertiesByLabel = new LinkedHashMap<>();
+    /** Keys declared directly on each label (its rdfs:domain); inherited ones are found through superLabels. */
+    private final Map<String, Set<String>> declaredKeys = new LinkedHashMap<>();
+    private final Set<String> domainFreeKeys = new TreeSet<>();
 
     private GraphSchema(String sourceHash, Collection<NodeLabel> labels, Collection<RelType> relTypes,
                         Collection<PropertyKey> properties, List<Diagnostic> issues) {
@@ -64,12 +66,11 @@ public final class GraphSchema {
                 relSubClosure.computeIfAbsent(sup, k -> new TreeSet<>()).add(r);
             }
         }
+        // Not expanded to every subclass here: on schema.org that is a few hundred thousand entries, most never
+        // asked for. propertiesOf/allowsProperty walk the (short) superclass closure instead.
         for (PropertyKey p : this.properties.values()) {
-            for (String d : p.domains()) {
-                for (String sub : subLabels(d)) {
-                    propertiesByLabel.computeIfAbsent(sub, k -> new TreeSet<>()).add(p.name());
-                }
-            }
+            if (p.anyDomain()) domainFreeKeys.add(p.name());
+            for (String d : p.domains()) declaredKeys.computeIfAbsent(d, k -> new TreeSet<>()).add(p.name());
         }
     }
 
@@ -159,10 +160,8 @@ public final class GraphSchema {
      * domain.
      */
     public Set<String> propertiesOf(String label) {
-        Set<String> out = new TreeSet<>(propertiesByLabel.getOrDefault(label, Set.of()));
-        for (PropertyKey p : properties.values()) {
-            if (p.anyDomain()) out.add(p.name());
-        }
+        Set<String> out = new TreeSet<>(domainFreeKeys);
+        for (String sup : superLabels(label)) out.addAll(declaredKeys.getOrDefault(sup, Set.of()));
         return out;
     }
 
@@ -171,7 +170,10 @@ public final class GraphSchema {
         PropertyKey p = properties.get(key);
         if (p == null) return false;
         if (p.anyDomain()) return true;
-        return propertiesByLabel.getOrDefault(label, Set.of()).contains(key);
+        for (String d : p.domains()) {
+            if (isSubLabel(label, d)) return true;
+        }
+        return false;
     }
 
     /**

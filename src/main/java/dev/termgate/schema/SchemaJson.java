@@ -3,16 +3,18 @@ package dev.termgate.schema;
 import com.google.gson.Gson;
 import com.google.gson.GsonBuilder;
 import com.google.gson.JsonArray;
-import com.google.gson.JsonElement;
 import com.google.gson.JsonNull;
 import com.google.gson.JsonObject;
 import com.google.gson.JsonParseException;
-import com.google.gson.JsonParser;
+import com.google.gson.stream.JsonReader;
+import com.google.gson.stream.JsonToken;
 import dev.termgate.diag.Code;
 import dev.termgate.diag.Diagnostic;
 import dev.termgate.diag.Severity;
 import dev.termgate.query.Span;
 
+import java.io.IOException;
+import java.io.StringReader;
 import java.util.ArrayList;
 import java.util.Collection;
 import java.util.HashMap;
@@ -55,46 +57,203 @@ public final class SchemaJson {
 
     /** @throws IllegalArgumentException when the text is not a schema in this format */
     public static GraphSchema fromJson(String json) {
-        try {
-            JsonObject root = JsonParser.parseString(json).getAsJsonObject();
-            int format = root.get("format").getAsInt();
-            if (format != FORMAT) throw new IllegalArgumentException("schema JSON format " + format + ", expected " + FORMAT);
+        // Streamed rather than through a JSON tree: reading the cache is on the start-up path (schema.org: 1 MB).
+        try (JsonReader r = new JsonReader(new StringReader(json))) {
+            int format = -1;
+            String hash = null;
             List<NodeLabel> labels = new ArrayList<>();
-            for (JsonElement e : root.getAsJsonArray("labels")) {
-                JsonObject o = e.getAsJsonObject();
-                labels.add(new NodeLabel(info(TermKind.LABEL, o), strings(o, "superLabels"), strings(o, "equivalents")));
-            }
             List<RelType> rels = new ArrayList<>();
-            for (JsonElement e : root.getAsJsonArray("relationshipTypes")) {
-                JsonObject o = e.getAsJsonObject();
-                List<Endpoint> eps = new ArrayList<>();
-                for (JsonElement ep : o.getAsJsonArray("endpoints")) {
-                    JsonObject p = ep.getAsJsonObject();
-                    eps.add(new Endpoint(optString(p, "from"), optString(p, "to")));
-                }
-                rels.add(new RelType(info(TermKind.RELATIONSHIP, o), eps, strings(o, "superTypes"),
-                        Optional.ofNullable(optString(o, "inverseOf")), o.get("symmetric").getAsBoolean()));
-            }
             List<PropertyKey> keys = new ArrayList<>();
-            for (JsonElement e : root.getAsJsonArray("propertyKeys")) {
-                JsonObject o = e.getAsJsonObject();
-                keys.add(new PropertyKey(info(TermKind.PROPERTY, o), strings(o, "domains"),
-                        Optional.ofNullable(optString(o, "datatype")),
-                        ValueType.valueOf(o.get("valueType").getAsString().toUpperCase(Locale.ROOT)), strings(o, "superKeys")));
-            }
             List<Diagnostic> issues = new ArrayList<>();
-            for (JsonElement e : root.getAsJsonArray("issues")) {
-                JsonObject o = e.getAsJsonObject();
-                Code code = CODES.get(o.get("code").getAsString());
-                if (code == null) throw new IllegalArgumentException("unknown diagnostic code " + o.get("code"));
-                issues.add(new Diagnostic(code, Severity.valueOf(o.get("severity").getAsString().toUpperCase(Locale.ROOT)),
-                        Span.NONE, o.get("message").getAsString(), List.of()));
+            r.beginObject();
+            while (r.hasNext()) {
+                switch (r.nextName()) {
+                    case "format" -> format = r.nextInt();
+                    case "sourceHash" -> hash = r.nextString();
+                    case "labels" -> readArray(r, () -> labels.add(readLabel(r)));
+                    case "relationshipTypes" -> readArray(r, () -> rels.add(readRel(r)));
+                    case "propertyKeys" -> readArray(r, () -> keys.add(readKey(r)));
+                    case "issues" -> readArray(r, () -> issues.add(readIssue(r)));
+                    default -> r.skipValue();
+                }
             }
-            return GraphSchema.of(root.get("sourceHash").getAsString(), labels, rels, keys, issues);
-        } catch (JsonParseException | IllegalStateException | NullPointerException | UnsupportedOperationException
-                 | ClassCastException e) {
+            r.endObject();
+            if (format != FORMAT) throw new IllegalArgumentException("schema JSON format " + format + ", expected " + FORMAT);
+            if (hash == null) throw new IllegalArgumentException("schema JSON without sourceHash");
+            return GraphSchema.of(hash, labels, rels, keys, issues);
+        } catch (IOException | IllegalStateException | NullPointerException | JsonParseException e) {
             throw new IllegalArgumentException("not a termgate schema JSON: " + e.getMessage(), e);
         }
+    }
+
+    /** The fields every term has, read as they come; the rest go to {@code extra}. */
+    private static final class TermFields {
+        String name;
+        String iri;
+        List<LangString> labels = List.of();
+        List<LangString> altLabels = List.of();
+        List<LangString> comments = List.of();
+        boolean deprecated;
+
+        boolean read(JsonReader r, String field) throws IOException {
+            switch (field) {
+                case "name" -> name = r.nextString();
+                case "iri" -> iri = r.nextString();
+                case "labels" -> labels = readTexts(r);
+                case "altLabels" -> altLabels = readTexts(r);
+                case "comments" -> comments = readTexts(r);
+                case "deprecated" -> deprecated = r.nextBoolean();
+                default -> {
+                    return false;
+                }
+            }
+            return true;
+        }
+
+        TermInfo info(TermKind kind) {
+            if (name == null || iri == null) throw new IllegalStateException("a term without name or iri");
+            return new TermInfo(kind, iri, name, labels, altLabels, comments, deprecated);
+        }
+    }
+
+    private static NodeLabel readLabel(JsonReader r) throws IOException {
+        TermFields t = new TermFields();
+        Set<String> supers = Set.of();
+        Set<String> equivalents = Set.of();
+        r.beginObject();
+        while (r.hasNext()) {
+            String f = r.nextName();
+            if (t.read(r, f)) continue;
+            switch (f) {
+                case "superLabels" -> supers = readStrings(r);
+                case "equivalents" -> equivalents = readStrings(r);
+                default -> r.skipValue();
+            }
+        }
+        r.endObject();
+        return new NodeLabel(t.info(TermKind.LABEL), supers, equivalents);
+    }
+
+    private static RelType readRel(JsonReader r) throws IOException {
+        TermFields t = new TermFields();
+        List<Endpoint> endpoints = new ArrayList<>();
+        Set<String> supers = Set.of();
+        String inverse = null;
+        boolean symmetric = false;
+        r.beginObject();
+        while (r.hasNext()) {
+            String f = r.nextName();
+            if (t.read(r, f)) continue;
+            switch (f) {
+                case "endpoints" -> readArray(r, () -> {
+                    String from = null;
+                    String to = null;
+                    r.beginObject();
+                    while (r.hasNext()) {
+                        switch (r.nextName()) {
+                            case "from" -> from = optString(r);
+                            case "to" -> to = optString(r);
+                            default -> r.skipValue();
+                        }
+                    }
+                    r.endObject();
+                    endpoints.add(new Endpoint(from, to));
+                });
+                case "superTypes" -> supers = readStrings(r);
+                case "inverseOf" -> inverse = optString(r);
+                case "symmetric" -> symmetric = r.nextBoolean();
+                default -> r.skipValue();
+            }
+        }
+        r.endObject();
+        return new RelType(t.info(TermKind.RELATIONSHIP), endpoints, supers, Optional.ofNullable(inverse), symmetric);
+    }
+
+    private static PropertyKey readKey(JsonReader r) throws IOException {
+        TermFields t = new TermFields();
+        Set<String> domains = Set.of();
+        Set<String> supers = Set.of();
+        String datatype = null;
+        ValueType vt = ValueType.ANY;
+        r.beginObject();
+        while (r.hasNext()) {
+            String f = r.nextName();
+            if (t.read(r, f)) continue;
+            switch (f) {
+                case "domains" -> domains = readStrings(r);
+                case "datatype" -> datatype = optString(r);
+                case "valueType" -> vt = ValueType.valueOf(r.nextString().toUpperCase(Locale.ROOT));
+                case "superKeys" -> supers = readStrings(r);
+                default -> r.skipValue();
+            }
+        }
+        r.endObject();
+        return new PropertyKey(t.info(TermKind.PROPERTY), domains, Optional.ofNullable(datatype), vt, supers);
+    }
+
+    private static Diagnostic readIssue(JsonReader r) throws IOException {
+        Code code = null;
+        Severity severity = null;
+        String message = null;
+        r.beginObject();
+        while (r.hasNext()) {
+            switch (r.nextName()) {
+                case "code" -> {
+                    String id = r.nextString();
+                    code = CODES.get(id);
+                    if (code == null) throw new IllegalStateException("unknown diagnostic code " + id);
+                }
+                case "severity" -> severity = Severity.valueOf(r.nextString().toUpperCase(Locale.ROOT));
+                case "message" -> message = r.nextString();
+                default -> r.skipValue();
+            }
+        }
+        r.endObject();
+        if (code == null || severity == null || message == null) throw new IllegalStateException("incomplete issue");
+        return new Diagnostic(code, severity, Span.NONE, message, List.of());
+    }
+
+    private interface Item {
+        void read() throws IOException;
+    }
+
+    private static void readArray(JsonReader r, Item item) throws IOException {
+        r.beginArray();
+        while (r.hasNext()) item.read();
+        r.endArray();
+    }
+
+    private static List<LangString> readTexts(JsonReader r) throws IOException {
+        List<LangString> out = new ArrayList<>();
+        readArray(r, () -> {
+            String text = null;
+            String lang = "";
+            r.beginObject();
+            while (r.hasNext()) {
+                switch (r.nextName()) {
+                    case "text" -> text = r.nextString();
+                    case "lang" -> lang = r.nextString();
+                    default -> r.skipValue();
+                }
+            }
+            r.endObject();
+            out.add(new LangString(text, lang));
+        });
+        return out;
+    }
+
+    private static Set<String> readStrings(JsonReader r) throws IOException {
+        List<String> out = new ArrayList<>();
+        readArray(r, () -> out.add(r.nextString()));
+        return Set.copyOf(out);
+    }
+
+    private static String optString(JsonReader r) throws IOException {
+        if (r.peek() == JsonToken.NULL) {
+            r.nextNull();
+            return null;
+        }
+        return r.nextString();
     }
 
     private static JsonObject tree(GraphSchema s) {
@@ -159,11 +318,6 @@ public final class SchemaJson {
         return o;
     }
 
-    private static TermInfo info(TermKind kind, JsonObject o) {
-        return new TermInfo(kind, o.get("iri").getAsString(), o.get("name").getAsString(), texts(o, "labels"),
-                texts(o, "altLabels"), texts(o, "comments"), o.get("deprecated").getAsBoolean());
-    }
-
     private static JsonArray texts(List<LangString> texts) {
         JsonArray a = new JsonArray();
         for (LangString t : texts) {
@@ -175,29 +329,10 @@ public final class SchemaJson {
         return a;
     }
 
-    private static List<LangString> texts(JsonObject o, String field) {
-        List<LangString> out = new ArrayList<>();
-        for (JsonElement e : o.getAsJsonArray(field)) {
-            JsonObject t = e.getAsJsonObject();
-            out.add(new LangString(t.get("text").getAsString(), t.get("lang").getAsString()));
-        }
-        return out;
-    }
-
     private static JsonArray array(Collection<String> values) {
         JsonArray a = new JsonArray();
         new TreeSet<>(values).forEach(a::add);
         return a;
     }
 
-    private static Set<String> strings(JsonObject o, String field) {
-        Set<String> out = new TreeSet<>();
-        for (JsonElement e : o.getAsJsonArray(field)) out.add(e.getAsString());
-        return out;
-    }
-
-    private static String optString(JsonObject o, String field) {
-        JsonElement e = o.get(field);
-        return e == null || e.isJsonNull() ? null : e.getAsString();
-    }
 }
