@@ -11,7 +11,8 @@ import java.io.PrintWriter;
         mixinStandardHelpOptions = true,
         versionProvider = Main.VersionProvider.class,
         description = "Ask a property graph questions in plain language, using only the terms its OWL/RDFS ontology defines.",
-        subcommands = {CommandLine.HelpCommand.class, CardCommand.class, CheckCommand.class, AskCommand.class, ShellCommand.class, BatchCommand.class},
+        subcommands = {CommandLine.HelpCommand.class, CardCommand.class, CheckCommand.class, AskCommand.class, ShellCommand.class, BatchCommand.class,
+                EvalCommand.class, AuditCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
                 "0:ok",
