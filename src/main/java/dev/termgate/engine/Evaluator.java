@@ -196,6 +196,9 @@ final class Evaluator {
     }
 
     static Object apply(Expr.BinaryOp op, Object l, Object r) {
+        if (op.isComparison() && op != Expr.BinaryOp.EQ && op != Expr.BinaryOp.NE && (isNaN(l) && Values.isNumber(r) || isNaN(r) && Values.isNumber(l))) {
+            return false;
+        }
         return switch (op) {
             case EQ -> Values.eq(l, r);
             case NE -> { Boolean e = Values.eq(l, r); yield e == null ? null : !e; }
@@ -223,6 +226,10 @@ final class Evaluator {
             }
             case AND, OR, XOR -> throw new IllegalStateException("handled with short-circuit");
         };
+    }
+
+    private static boolean isNaN(Object v) {
+        return v instanceof Double d && d.isNaN();
     }
 
     static Object in(Object l, Object r) {
@@ -321,12 +328,13 @@ final class Evaluator {
             else if (Boolean.TRUE.equals(bool(v))) trues++;
         }
         int falses = total - trues - unknowns;
-        return switch (q.quantifier()) {
-            case ALL -> falses > 0 ? false : (unknowns > 0 ? null : true);
-            case ANY -> trues > 0 ? true : (unknowns > 0 ? null : false);
-            case NONE -> trues > 0 ? false : (unknowns > 0 ? null : true);
-            case SINGLE -> trues > 1 ? false : (unknowns > 0 ? null : trues == 1);
-        };
+        Boolean unknown = null;
+        switch (q.quantifier()) {
+            case ALL: return falses > 0 ? Boolean.FALSE : (unknowns > 0 ? unknown : Boolean.TRUE);
+            case ANY: return trues > 0 ? Boolean.TRUE : (unknowns > 0 ? unknown : Boolean.FALSE);
+            case NONE: return trues > 0 ? Boolean.FALSE : (unknowns > 0 ? unknown : Boolean.TRUE);
+            default: return trues > 1 ? Boolean.FALSE : (unknowns > 0 ? unknown : Boolean.valueOf(trues == 1));
+        }
     }
 
     private Object mapProjection(Expr.MapProjection mp, Row row, IdentityHashMap<Expr, Object> ag) {

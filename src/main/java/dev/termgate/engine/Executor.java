@@ -37,13 +37,13 @@ final class Executor implements Evaluator.Host {
     private final GraphSchema schema;
     private final RunControl control;
     private final Map<String, Object> params;
-    private final Function<Expr, String> namer;
+    private final Function<dev.termgate.query.Node, String> namer;
     private final WriteHandler writeHandler;
     final Evaluator ev;
     final Matcher matcher;
 
     Executor(GraphPort port, GraphSchema schema, RunControl control, Map<String, Object> params,
-             Function<Expr, String> namer, WriteHandler writeHandler) {
+             Function<dev.termgate.query.Node, String> namer, WriteHandler writeHandler) {
         this.port = port;
         this.schema = schema;
         this.control = control;
@@ -77,13 +77,23 @@ final class Executor implements Evaluator.Host {
     private Table runSingle(SingleQuery q, List<Row> input) {
         List<Row> rows = input;
         List<String> columns = List.of();
+        // Variables in scope, tracked from the clauses so that RETURN * has columns even with no rows.
+        Set<String> scope = new java.util.LinkedHashSet<>();
+        if (!input.isEmpty()) for (String n : input.get(0).names()) scope.add(n);
         for (Clause c : q.clauses()) {
             control.checkNow();
-            if (c instanceof Clause.Match m) rows = match(m, rows);
-            else if (c instanceof Clause.Unwind u) rows = unwind(u, rows);
-            else if (c instanceof Clause.With w) rows = project(w.projection(), rows, w.where()).rows();
-            else if (c instanceof Clause.Return r) {
-                Table t = project(r.projection(), rows, Optional.empty());
+            if (c instanceof Clause.Match m) {
+                rows = match(m, rows);
+                scope.addAll(introduced(m.pattern(), rows));
+            } else if (c instanceof Clause.Unwind u) {
+                rows = unwind(u, rows);
+                scope.add(u.alias().name());
+            } else if (c instanceof Clause.With w) {
+                Table t = project(w.projection(), rows, w.where(), scope);
+                rows = t.rows();
+                scope = new java.util.LinkedHashSet<>(t.columns());
+            } else if (c instanceof Clause.Return r) {
+                Table t = project(r.projection(), rows, Optional.empty(), scope);
                 rows = t.rows();
                 columns = t.columns();
             } else rows = writeHandler.apply(c, rows, this);
@@ -153,10 +163,15 @@ final class Executor implements Evaluator.Host {
     /** An output row plus the scope ORDER BY may read (the input row's variables when not aggregating). */
     private record Projected(Row out, Row scope) {}
 
-    private Table project(Clause.Projection p, List<Row> rows, Optional<Expr> where) {
-        List<Item> items = items(p, rows);
+    private Table project(Clause.Projection p, List<Row> rows, Optional<Expr> where, Set<String> scope) {
+        List<Item> items = items(p, scope);
         List<String> columns = items.stream().map(Item::name).toList();
         boolean aggregating = items.stream().anyMatch(i -> Aggregation.contains(i.expr()));
+        if (!aggregating && !p.distinct() && p.orderBy().isEmpty() && p.limit().isPresent()) {
+            // Only the rows that survive SKIP/LIMIT need projecting.
+            long keep = p.skip().map(e -> count(e, "SKIP")).orElse(0L) + count(p.limit().get(), "LIMIT");
+            if (keep < rows.size()) rows = rows.subList(0, (int) keep);
+        }
         List<Projected> projected = aggregating ? aggregate(items, rows) : plain(items, rows);
         if (p.distinct()) {
             Set<Object> seen = new HashSet<>();
@@ -177,8 +192,9 @@ final class Executor implements Evaluator.Host {
             projected = projected.subList(from, to);
         }
         List<Row> out = new ArrayList<>(projected.size());
+        Expr whereExpr = where.map(w -> substitute(w, items)).orElse(null);
         for (Projected pr : projected) {
-            if (where.isPresent() && !Values.isTrue(ev.eval(where.get(), pr.out()))) continue;
+            if (whereExpr != null && !Values.isTrue(ev.eval(whereExpr, pr.scope()))) continue;
             out.add(pr.out());
         }
         return new Table(columns, out);
@@ -191,17 +207,15 @@ final class Executor implements Evaluator.Host {
         return l;
     }
 
-    private List<Item> items(Clause.Projection p, List<Row> rows) {
+    private List<Item> items(Clause.Projection p, Set<String> scope) {
         List<Item> items = new ArrayList<>();
         if (p.star()) {
             Set<String> names = new TreeSet<>();
-            if (!rows.isEmpty()) {
-                for (String n : rows.get(0).names()) if (!Row.Names.isHidden(n)) names.add(n);
-            }
+            for (String n : scope) if (!Row.Names.isHidden(n)) names.add(n);
             for (String n : names) items.add(new Item(n, new Expr.Variable(n, dev.termgate.query.Span.NONE)));
         }
         for (Clause.ProjectionItem it : p.items()) {
-            String name = it.alias().map(Expr.Variable::name).orElseGet(() -> namer.apply(it.expr()));
+            String name = it.alias().map(Expr.Variable::name).orElseGet(() -> namer.apply(it));
             items.add(new Item(name, it.expr()));
         }
         return items;
@@ -295,10 +309,35 @@ final class Executor implements Evaluator.Host {
     }
 
     private Object sortValue(Expr e, List<Item> items, Projected pr) {
-        for (Item i : items) {
-            if (Trees.equalIgnoringSpans(i.expr(), e)) return pr.out().get(i.name());
+        return ev.eval(substitute(e, items), pr.scope());
+    }
+
+    /**
+     * After a projection, ORDER BY and WHERE may repeat a projected expression ({@code WITH a.x AS y WHERE
+     * a.x > 1}); such subexpressions read the projected column instead (outermost match wins).
+     */
+    private static Expr substitute(Expr e, List<Item> items) {
+        java.util.Set<dev.termgate.query.Node> hits = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
+        java.util.Map<dev.termgate.query.Node, String> names = new IdentityHashMap<>();
+        java.util.ArrayDeque<dev.termgate.query.Node> todo = new java.util.ArrayDeque<>();
+        todo.push(e);
+        while (!todo.isEmpty()) {
+            dev.termgate.query.Node n = todo.pop();
+            String alias = null;
+            if (n instanceof Expr x && !(x instanceof Expr.Variable)) {
+                for (Item i : items) {
+                    if (!(i.expr() instanceof Expr.Variable) && Trees.equalIgnoringSpans(i.expr(), x)) { alias = i.name(); break; }
+                }
+            }
+            if (alias != null) {
+                hits.add(n);
+                names.put(n, alias);
+            } else {
+                for (dev.termgate.query.Node c : Trees.children(n)) todo.push(c);
+            }
         }
-        return ev.eval(e, pr.scope());
+        if (hits.isEmpty()) return e;
+        return Trees.rewrite(e, n -> hits.contains(n) ? new Expr.Variable(names.get(n), n.span()) : n);
     }
 
     private static List<Row> distinctRows(List<Row> rows, List<String> columns) {

@@ -37,6 +37,12 @@ final class GraphPort {
         return description;
     }
 
+    /** Forgets the label catalogue (the importer calls it after writing). */
+    void invalidate() {
+        vertexLabels = null;
+        edgeLabels = null;
+    }
+
     /** Read once per port: the graph is never written through the query path. */
     List<String> vertexLabels() {
         if (vertexLabels == null) {

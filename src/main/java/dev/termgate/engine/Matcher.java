@@ -448,6 +448,11 @@ final class Matcher {
         for (int i = 0; i < rels.size(); i++) {
             String v = plan.relVars().get(i);
             Object r = rels.get(i);
+            if (plan.reversed() && r instanceof List<?> seg) {
+                List<Object> rev = new ArrayList<>(seg);
+                Collections.reverse(rev);
+                r = Collections.unmodifiableList(rev);
+            }
             if (row.has(v)) {
                 if (!Boolean.TRUE.equals(Values.eq(row.get(v), r))) return null;
             } else if (add.containsKey(v)) {

@@ -108,14 +108,15 @@ final class TraversalEngine implements Engine {
     }
 
     /** Column names: the expression as written when the source is known, else a canonical rendering. */
-    static Function<Expr, String> namer(String text) {
+    static Function<dev.termgate.query.Node, String> namer(String text) {
         return e -> {
+            if (e instanceof Clause.ProjectionItem it && (text == null || it.span().isNone())) e = it.expr();
             if (e instanceof Expr.Variable v) return v.name();
             var s = e.span();
             if (text != null && !s.isNone() && s.endOffset() <= text.length()) {
                 return text.substring(s.startOffset(), s.endOffset());
             }
-            return ExprText.of(e);
+            return e instanceof Expr x ? ExprText.of(x) : e.getClass().getSimpleName();
         };
     }
 
@@ -123,7 +124,7 @@ final class TraversalEngine implements Engine {
     public Plan explain(Request req) {
         RunControl control = RunControl.of(req.limits());
         Executor ex = executor(req, control, REFUSE_WRITES);
-        Function<Expr, String> name = namer(req.text());
+        Function<dev.termgate.query.Node, String> name = namer(req.text());
         List<Plan.Step> steps = new ArrayList<>();
         for (SingleQuery sq : req.query().parts()) {
             if (sq != req.query().first()) steps.add(new Plan.Step(Plan.Kind.CLIENT, "UNION", "combine rows"));
@@ -133,7 +134,7 @@ final class TraversalEngine implements Engine {
         return new Plan(steps);
     }
 
-    private void explainClause(Clause c, Executor ex, Function<Expr, String> name, Map<String, Object> scope,
+    private void explainClause(Clause c, Executor ex, Function<dev.termgate.query.Node, String> name, Map<String, Object> scope,
                                List<Plan.Step> steps) {
         if (c instanceof Clause.Match m) {
                 String kw = m.optional() ? "OPTIONAL MATCH" : "MATCH";
@@ -171,7 +172,7 @@ final class TraversalEngine implements Engine {
         }
     }
 
-    private static void explainProjection(String kw, Clause.Projection p, Function<Expr, String> name, List<Plan.Step> steps) {
+    private static void explainProjection(String kw, Clause.Projection p, Function<dev.termgate.query.Node, String> name, List<Plan.Step> steps) {
         List<String> items = new ArrayList<>();
         if (p.star()) items.add("*");
         for (Clause.ProjectionItem it : p.items()) {
