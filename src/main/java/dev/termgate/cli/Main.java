@@ -12,7 +12,8 @@ import java.io.PrintWriter;
         versionProvider = Main.VersionProvider.class,
         description = "Ask a property graph questions in plain language, using only the terms its OWL/RDFS ontology defines.",
         subcommands = {CommandLine.HelpCommand.class, CardCommand.class, CheckCommand.class, AskCommand.class, ShellCommand.class, BatchCommand.class,
-                EvalCommand.class, AuditCommand.class},
+                EvalCommand.class, AuditCommand.class,
+                RunCommand.class, ImportCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
                 "0:ok",

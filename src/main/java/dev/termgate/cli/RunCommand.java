@@ -162,22 +162,8 @@ public final class RunCommand implements Callable<Integer> {
         } catch (IOException e) {
             throw new UserError(Exit.USAGE, "cannot read " + file + ": " + e.getMessage());
         }
-        List<String> qs = splitQueries(text);
+        List<String> qs = dev.termgate.parser.QueryFile.split(text).stream().map(dev.termgate.parser.QueryFile.Entry::text).toList();
         if (qs.isEmpty()) throw new UserError(Exit.INVALID, file + " holds no query");
         return qs;
-    }
-
-    /** Queries separated by blank lines. */
-    static List<String> splitQueries(String text) {
-        List<String> out = new ArrayList<>();
-        StringBuilder cur = new StringBuilder();
-        for (String line : text.split("\r?\n", -1)) {
-            if (line.isBlank()) {
-                if (!cur.toString().isBlank()) out.add(cur.toString().strip());
-                cur.setLength(0);
-            } else cur.append(line).append('\n');
-        }
-        if (!cur.toString().isBlank()) out.add(cur.toString().strip());
-        return out;
     }
 }
