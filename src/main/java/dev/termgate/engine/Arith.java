@@ -21,6 +21,9 @@ final class Arith {
             out.addAll(b);
             return Collections.unmodifiableList(out);
         }
+        if (l instanceof DurationValue a && r instanceof DurationValue b) return a.plus(b);
+        if (r instanceof DurationValue d && Temporals.isTemporal(l)) return Temporals.plus(l, d);
+        if (l instanceof DurationValue d && Temporals.isTemporal(r)) return Temporals.plus(r, d);
         if (l instanceof String s && (r instanceof String || Values.isNumber(r) || r instanceof Boolean)) return s + text(r);
         if (r instanceof String s && (Values.isNumber(l) || l instanceof Boolean)) return text(l) + s;
         if (l instanceof Long a && r instanceof Long b) {
@@ -36,6 +39,8 @@ final class Arith {
 
     static Object sub(Object l, Object r) {
         if (l == null || r == null) return null;
+        if (l instanceof DurationValue a && r instanceof DurationValue b) return a.plus(b.negate());
+        if (r instanceof DurationValue d && Temporals.isTemporal(l)) return Temporals.plus(l, d.negate());
         if (l instanceof Long a && r instanceof Long b) {
             try { return Math.subtractExact(a, b); } catch (ArithmeticException e) { throw overflow(); }
         }
@@ -45,6 +50,8 @@ final class Arith {
 
     static Object mul(Object l, Object r) {
         if (l == null || r == null) return null;
+        if (l instanceof DurationValue d && Values.isNumber(r)) return d.times(((Number) r).doubleValue());
+        if (r instanceof DurationValue d && Values.isNumber(l)) return d.times(((Number) l).doubleValue());
         if (l instanceof Long a && r instanceof Long b) {
             try { return Math.multiplyExact(a, b); } catch (ArithmeticException e) { throw overflow(); }
         }
@@ -54,6 +61,7 @@ final class Arith {
 
     static Object div(Object l, Object r) {
         if (l == null || r == null) return null;
+        if (l instanceof DurationValue d && Values.isNumber(r)) return d.times(1.0 / ((Number) r).doubleValue());
         if (l instanceof Long a && r instanceof Long b) {
             if (b == 0) throw EngineException.runtime("division by zero");
             if (a == Long.MIN_VALUE && b == -1) throw overflow();
@@ -85,6 +93,7 @@ final class Arith {
             try { return Math.negateExact(l); } catch (ArithmeticException e) { throw overflow(); }
         }
         if (v instanceof Double d) return -d;
+        if (v instanceof DurationValue d) return d.negate();
         throw EngineException.runtime("cannot negate a " + Values.typeName(v));
     }
 

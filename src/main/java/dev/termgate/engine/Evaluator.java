@@ -267,6 +267,7 @@ final class Evaluator {
         if (target instanceof NodeValue n) return n.properties().get(key);
         if (target instanceof RelValue r) return r.properties().get(key);
         if (target instanceof Map<?, ?> m) return m.get(key);
+        if (Temporals.isTemporal(target)) return Temporals.property(target, key);
         throw EngineException.runtime("cannot read property '" + key + "' of a " + Values.typeName(target));
     }
 

@@ -104,9 +104,10 @@ final class Functions {
                 if (v instanceof Long l) return l.toString();
                 if (v instanceof Double d) return Values.formatFloat(d);
                 if (v instanceof Boolean b) return b.toString();
+                if (Temporals.isTemporal(v)) return Temporals.text(v);
                 throw type(name, v);
             });
-            case "tostringornull" -> a.get(0) instanceof String || Values.isNumber(a.get(0)) || a.get(0) instanceof Boolean
+            case "tostringornull" -> a.get(0) instanceof String || Values.isNumber(a.get(0)) || a.get(0) instanceof Boolean || Temporals.isTemporal(a.get(0))
                     ? call("tostring", a, call) : null;
             case "tointeger" -> nullOr(a, 0, v -> toInteger(v, true));
             case "tointegerornull" -> a.get(0) == null ? null : toInteger(a.get(0), false);
@@ -154,9 +155,7 @@ final class Functions {
             case "split" -> a.contains(null) ? null : split(str(name, a.get(0)), str(name, a.get(1)));
             case "char_length", "character_length" -> nullOr(a, 0, v -> (long) str(name, v).codePointCount(0, str(name, v).length()));
             default -> {
-                if (isTemporal(name)) {
-                    throw EngineException.runtime("temporal function '" + call.qualifiedName() + "' is not supported yet");
-                }
+                if (isTemporal(name)) yield Temporals.construct(name, a);
                 throw EngineException.runtime("unknown function '" + call.qualifiedName() + "'");
             }
         };

@@ -42,6 +42,8 @@ public final class Values {
             return Collections.unmodifiableMap(out);
         }
         if (v instanceof NodeValue || v instanceof RelValue || v instanceof PathValue) return v;
+        Object t = Temporals.normalize(v);
+        if (Temporals.isTemporal(t)) return t;
         return v.toString();
     }
 
@@ -65,6 +67,7 @@ public final class Values {
         if (v instanceof NodeValue) return "NODE";
         if (v instanceof RelValue) return "RELATIONSHIP";
         if (v instanceof PathValue) return "PATH";
+        if (Temporals.isTemporal(v)) return Temporals.typeName(v);
         return v.getClass().getSimpleName();
     }
 
@@ -100,6 +103,7 @@ public final class Values {
             return pa.nodes().equals(pb.nodes()) && pa.rels().equals(pb.rels());
         }
         if (!typeName(a).equals(typeName(b))) return false;
+        if (Temporals.isTemporal(a)) return Temporals.equal(a, b);
         return a.equals(b);
     }
 
@@ -126,6 +130,7 @@ public final class Values {
         }
         if (a instanceof String x && b instanceof String y) return Integer.signum(x.compareTo(y));
         if (a instanceof Boolean x && b instanceof Boolean y) return Boolean.compare(x, y);
+        if (Temporals.isTemporal(a) && Temporals.isTemporal(b)) return Temporals.compare(a, b);
         if (a instanceof List<?> la && b instanceof List<?> lb) {
             int n = Math.min(la.size(), lb.size());
             for (int i = 0; i < n; i++) {
@@ -165,11 +170,12 @@ public final class Values {
         if (v instanceof RelValue) return 2;
         if (v instanceof List) return 3;
         if (v instanceof PathValue) return 4;
-        if (v instanceof String) return 5;
-        if (v instanceof Boolean) return 6;
-        if (isNumber(v)) return 7;
-        if (v == null) return 9;
-        return 8;
+        if (Temporals.isTemporal(v)) return 10 + Temporals.orderRank(v);
+        if (v instanceof String) return 20;
+        if (v instanceof Boolean) return 21;
+        if (isNumber(v)) return 22;
+        if (v == null) return 99;
+        return 30;
     }
 
     /** Total order for ORDER BY, min/max and sorting lists; null sorts last. */
@@ -182,14 +188,15 @@ public final class Values {
             case 2 -> compareIds(((RelValue) a).id(), ((RelValue) b).id());
             case 3 -> compareLists((List<?>) a, (List<?>) b);
             case 4 -> comparePaths((PathValue) a, (PathValue) b);
-            case 5 -> ((String) a).compareTo((String) b);
-            case 6 -> Boolean.compare((Boolean) a, (Boolean) b);
-            case 7 -> {
+            case 10, 11, 12, 13, 14, 15 -> Temporals.order(a, b);
+            case 20 -> ((String) a).compareTo((String) b);
+            case 21 -> Boolean.compare((Boolean) a, (Boolean) b);
+            case 22 -> {
                 boolean na = a instanceof Double d && d.isNaN(), nb = b instanceof Double d2 && d2.isNaN();
                 if (na || nb) yield Boolean.compare(na, nb);
                 yield numCompare((Number) a, (Number) b);
             }
-            case 9 -> 0;
+            case 99 -> 0;
             default -> a.toString().compareTo(b.toString());
         };
     }
@@ -252,6 +259,8 @@ public final class Values {
             return out;
         }
         if (v instanceof PathValue p) return List.of("path", p.nodes(), p.rels());
+        if (v instanceof java.time.ZonedDateTime z) return List.of("datetime", z.toInstant(), z.getZone().getId());
+        if (v instanceof java.time.OffsetTime t) return List.of("time", t.withOffsetSameInstant(java.time.ZoneOffset.UTC).toLocalTime());
         return v;
     }
 
@@ -263,6 +272,7 @@ public final class Values {
     /** Text for terminals and CSV; strings inside collections are quoted, top-level strings are not. */
     public static String display(Object v) {
         if (v instanceof String s) return s;
+        if (Temporals.isTemporal(v)) return Temporals.text(v);
         return literal(v);
     }
 
@@ -319,6 +329,8 @@ public final class Values {
                 appendLiteral(sb, next);
             }
             sb.append('>');
+        } else if (Temporals.isTemporal(v)) {
+            appendLiteral(sb, Temporals.text(v));
         } else sb.append(v);
     }
 

@@ -31,12 +31,32 @@ class TckEngineTest {
     private static final Pattern OTHER_WRITES = Pattern.compile(
             "(?<![.:$\\w])(MERGE|SET|DELETE|REMOVE|FOREACH|LOAD\\s+CSV|CALL)(?!\\w)", Pattern.CASE_INSENSITIVE);
 
-    /** The 680 read-only scenarios with an expected result whose graph is made by CREATE only. */
+    /**
+     * The 680 read-only scenarios with an expected result whose graph is made by CREATE only: 19 on the named
+     * binary-tree graphs and 661 whose every {@code having executed} statement consists of CREATE clauses alone.
+     */
     static List<TckScenarios.Scenario> createSetupScenarios() {
+        CypherParser parser = new CypherParser();
         return TckScenarios.readOnlyWithResult().stream()
                 .filter(s -> s.graph() == TckScenarios.GraphKind.NAMED
-                        || (!s.setup().isEmpty() && s.setup().stream().noneMatch(q -> OTHER_WRITES.matcher(q).find())))
+                        || (!s.setup().isEmpty() && s.setup().stream().allMatch(q -> onlyCreate(parser, q))))
                 .toList();
+    }
+
+    /** Scenarios whose setup also reads (MATCH/UNWIND/WITH before CREATE): run too, reported apart. */
+    static List<TckScenarios.Scenario> mixedSetupScenarios() {
+        CypherParser parser = new CypherParser();
+        return TckScenarios.readOnlyWithResult().stream()
+                .filter(s -> s.graph() != TckScenarios.GraphKind.NAMED && !s.setup().isEmpty()
+                        && s.setup().stream().noneMatch(q -> OTHER_WRITES.matcher(q).find())
+                        && !s.setup().stream().allMatch(q -> onlyCreate(parser, q)))
+                .toList();
+    }
+
+    private static boolean onlyCreate(CypherParser parser, String q) {
+        var r = parser.parse(q);
+        return r.isValid() && r.tree().unions().isEmpty()
+                && r.tree().first().clauses().stream().allMatch(c -> c instanceof dev.termgate.query.Clause.Create);
     }
 
     /** The read-only scenarios with an expected result and no setup at all (expression semantics). */
@@ -50,6 +70,7 @@ class TckEngineTest {
     void createSetupScenariosPass() {
         Report r = runAll(createSetupScenarios());
         r.print("TCK M23 read-only scenarios with CREATE setup");
+        runAll(mixedSetupScenarios()).print("TCK M23 read-only scenarios whose setup reads and creates (not counted above)");
         // Required by the engine issue: at least 85% pass (outside source: openCypher TCK M23).
         assertTrue(r.total() == 680, "expected the 680 scenarios the issue counts, found " + r.total());
         assertTrue(r.passed >= Math.ceil(0.85 * r.total()), "pass rate below 85%: " + r.passed + "/" + r.total());

@@ -37,6 +37,7 @@ final class TckValues {
         else if (v instanceof String s) sb.append('\'').append(s.replace("\\", "\\\\").replace("'", "\\'")).append('\'');
         else if (v instanceof Double d) sb.append(canonFloat(d));
         else if (v instanceof Long || v instanceof Boolean) sb.append(v);
+        else if (Temporals.isTemporal(v)) canon(sb, Temporals.text(v), unordered);
         else if (v instanceof List<?> l) {
             List<String> parts = new ArrayList<>();
             for (Object o : l) parts.add(canon(o, unordered));
