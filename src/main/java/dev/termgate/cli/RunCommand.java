@@ -95,6 +95,7 @@ public final class RunCommand implements Callable<Integer> {
             ParseResult r = parser.parse(t);
             if (!r.isValid()) {
                 err.print(r.render());
+                err.flush();
                 invalid = true;
                 trees.add(null);
             } else trees.add(r.tree());
