@@ -2,16 +2,15 @@ package dev.termgate.cli;
 
 import com.google.gson.Gson;
 import com.google.gson.GsonBuilder;
-import com.google.gson.JsonArray;
 import com.google.gson.JsonObject;
-import dev.termgate.diag.Diagnostic;
-import dev.termgate.diag.Render;
-import dev.termgate.parser.CypherParser;
-import dev.termgate.parser.ParseResult;
 import dev.termgate.parser.QueryFile;
-import dev.termgate.query.Printer;
-import dev.termgate.query.Query;
+import dev.termgate.repair.CheckJson;
+import dev.termgate.repair.CheckResult;
+import dev.termgate.repair.CheckText;
+import dev.termgate.repair.QueryCheck;
+import dev.termgate.schema.GraphSchema;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -24,15 +23,22 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 
-/** {@code termgate check}: reads queries, prints each one's canonical form or its diagnostics. Wiring only. */
+/**
+ * {@code termgate check}: reads queries, checks each one (syntax, scope and types, and with an ontology every term,
+ * direction and class), prints its canonical form or its diagnostics, the certain repair when there is one, and
+ * the ontology terms it uses. Wiring only: the work is {@link QueryCheck}.
+ */
 @Command(name = "check", mixinStandardHelpOptions = true,
-        description = "Check openCypher queries: syntax now; scope and ontology terms with the analyzer.",
+        description = {"Check openCypher queries: syntax, scope and types, and every label, relationship type,",
+                "property key, direction and class against the ontology (the demo ontology unless --ontology or",
+                "--schema-free is given). Shows the certain repair when there is one, and the terms used."},
         exitCodeListHeading = "%nExit codes:%n",
-        exitCodeList = {"0:every query is valid", "1:at least one query is invalid", "2:usage error"})
+        exitCodeList = {"0:every query is valid (possibly after a certain repair, which is shown)",
+                "1:at least one query is invalid, or the ontology is", "2:usage error",
+                "3:the ontology could not be fetched", "4:internal error"})
 public final class CheckCommand implements Callable<Integer> {
 
     enum Format { text, json }
@@ -47,74 +53,51 @@ public final class CheckCommand implements Callable<Integer> {
             description = "Read queries from FILE ('-' for standard input); queries are separated by blank lines.")
     String file;
 
-    @Option(names = "--schema-free", description = "Check without an ontology.")
+    @Option(names = "--schema-free", description = "Check without an ontology (syntax, scope and types only).")
     boolean schemaFree;
+
+    @Option(names = "--no-repair", description = "Report only; do not apply certain repairs.")
+    boolean noRepair;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (default) or json: one JSON object per query, in input order.")
     Format format;
 
-    private final CypherParser parser = new CypherParser();
+    @Mixin
+    OntologyOptions ontology;
 
     @Override
     public Integer call() throws IOException {
         if ((query == null) == (file == null)) {
             throw new UserError(Exit.USAGE, "give either a QUERY or --file FILE");
         }
-        if (!schemaFree) {
-            throw new UserError(Exit.USAGE, "give --schema-free to check without an ontology");
+        if (schemaFree && !ontology.sources().isEmpty()) {
+            throw new UserError(Exit.USAGE, "--schema-free and --ontology exclude each other");
         }
         List<QueryFile.Entry> entries = query != null ? List.of(new QueryFile.Entry(0, 1, query))
                 : QueryFile.split(readInput(file));
         PrintWriter out = spec.commandLine().getOut();
+        GraphSchema schema = schemaFree ? null : ontology.schema(spec.commandLine().getErr());
+        QueryCheck.Mode mode = noRepair ? QueryCheck.Mode.CHECK_ONLY : QueryCheck.Mode.REPAIR;
         boolean allValid = true;
         Gson gson = new GsonBuilder().serializeNulls().disableHtmlEscaping().create();
         for (QueryFile.Entry entry : entries) {
-            Checked c = check(entry.text());
+            CheckResult c = QueryCheck.check(entry.text(), schema, mode);
             allValid &= c.valid();
             if (format == Format.json) {
-                out.println(gson.toJson(json(entry, c)));
+                JsonObject o = new JsonObject();
+                o.addProperty("index", entry.index());
+                o.addProperty("line", entry.line());
+                CheckJson.of(c, entry.line() - 1).entrySet().forEach(e -> o.add(e.getKey(), e.getValue()));
+                out.println(gson.toJson(o));
             } else {
                 if (entry.index() > 0) out.println();
                 if (file != null) out.println("// query " + (entry.index() + 1) + ", line " + entry.line());
-                out.print(c.valid() ? c.canonical() + "\n" : Render.all(entry.text(), c.diagnostics()));
+                out.print(CheckText.of(c));
             }
         }
         out.flush();
         return allValid ? Exit.OK : Exit.INVALID;
-    }
-
-    /** The outcome for one query; the analyzer's checks join the syntax check here. */
-    record Checked(boolean valid, String canonical, List<Diagnostic> diagnostics) {}
-
-    Checked check(String text) {
-        ParseResult r = parser.parse(text);
-        if (!r.isValid()) return new Checked(false, null, r.diagnostics());
-        Query tree = r.tree();
-        List<Diagnostic> found = new ArrayList<>();
-        boolean valid = found.stream().noneMatch(Diagnostic::isError);
-        return new Checked(valid, valid ? Printer.print(tree) : null, found);
-    }
-
-    /** Diagnostic lines count from the start of the file, so a reader can go straight to them. */
-    private static JsonObject json(QueryFile.Entry entry, Checked c) {
-        JsonObject o = new JsonObject();
-        o.addProperty("index", entry.index());
-        o.addProperty("line", entry.line());
-        o.addProperty("valid", c.valid());
-        o.addProperty("canonical", c.canonical());
-        JsonArray ds = new JsonArray();
-        for (Diagnostic d : c.diagnostics()) {
-            JsonObject j = new JsonObject();
-            j.addProperty("code", d.code().id());
-            j.addProperty("severity", d.severity().word());
-            j.addProperty("line", d.span().isNone() ? 0 : d.span().startLine() + entry.line() - 1);
-            j.addProperty("column", d.span().isNone() ? 0 : d.span().startColumn());
-            j.addProperty("message", d.fullMessage());
-            ds.add(j);
-        }
-        o.add("diagnostics", ds);
-        return o;
     }
 
     private static String readInput(String file) throws IOException {
