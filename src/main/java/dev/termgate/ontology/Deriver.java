@@ -81,7 +81,7 @@ final class Deriver {
                             Set<Node> dataRanges, boolean object, boolean data) {}
 
     /** Bumped whenever the rules change, so that cached schemas derived by older rules are not reused. */
-    static final int RULES_VERSION = 1;
+    static final int RULES_VERSION = 2;
 
     /** @param loadWarnings problems found while reading the sources; they head the schema's issues */
     GraphSchema derive(String sourceHash, List<Diagnostic> loadWarnings) {

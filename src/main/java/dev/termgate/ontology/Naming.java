@@ -21,9 +21,10 @@ import java.util.TreeMap;
  * Gives every term of one kind its graph name: the {@code tg:graphName} override when present, else the local
  * name in the chosen style. When several IRIs would get one name, at most one keeps it: the only one whose
  * name was set by {@code tg:graphName}, else the only one in the home namespace (the namespace holding most
- * terms: the ontology's own). The others — all of them when no single one qualifies — are renamed to their
- * prefix-qualified form ({@code foaf:Organization} → {@code FoafOrganization}; a number is appended if that is
- * still taken), and a {@link Code#NAME_COLLISION} warning names every IRI, so a query never silently reaches the
+ * terms: the ontology's own), else the only one whose local name is already exactly that name. The others — all of them when no single one qualifies — are renamed to their
+ * prefix-qualified form ({@code foaf:Organization} → {@code FoafOrganization}), or, when that does not tell them
+ * apart (one namespace), to their local names as written ({@code familyName}, {@code family_name}); a number is
+ * appended if the name is still taken. A {@link Code#NAME_COLLISION} warning names every IRI, so a query never silently reaches the
  * wrong term.
  */
 final class Naming {
@@ -56,10 +57,14 @@ final class Naming {
                 out.put(group.get(0), e.getKey());
                 continue;
             }
-            String keeper = keeper(group, overrides);
+            String keeper = keeper(kind, group, overrides);
             List<String> renamed = new ArrayList<>();
             for (String iri : group) {
-                String name = iri.equals(keeper) ? e.getKey() : unique(qualified(kind, iri), taken);
+                // Qualifying by prefix only helps across namespaces; within one (foaf:familyName, foaf:family_name)
+                // the local names as written are what tells the terms apart.
+                boolean sharesNamespace = group.stream().anyMatch(o -> !o.equals(iri) && namespace(o).equals(namespace(iri)));
+                String wanted = sharesNamespace ? Names.localName(iri) : qualified(kind, iri);
+                String name = iri.equals(keeper) ? e.getKey() : unique(wanted, taken);
                 taken.add(name);
                 out.put(iri, name);
                 renamed.add(name);
@@ -73,12 +78,15 @@ final class Naming {
     }
 
     /** The one IRI of a colliding group that keeps the plain name, or null. */
-    private String keeper(List<String> group, Map<String, String> overrides) {
+    private String keeper(TermKind kind, List<String> group, Map<String, String> overrides) {
         List<String> explicit = group.stream().filter(overrides::containsKey).toList();
         if (explicit.size() == 1) return explicit.get(0);
         if (!explicit.isEmpty()) return null;
         List<String> own = group.stream().filter(i -> namespace(i).equals(home)).toList();
-        return own.size() == 1 ? own.get(0) : null;
+        if (own.size() == 1) return own.get(0);
+        List<String> exact = (own.isEmpty() ? group : own).stream()
+                .filter(i -> Names.localName(i).equals(baseName(kind, i, overrides))).toList();
+        return exact.size() == 1 ? exact.get(0) : null;
     }
 
     private String baseName(TermKind kind, String iri, Map<String, String> overrides) {
