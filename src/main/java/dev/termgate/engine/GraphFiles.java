@@ -41,6 +41,13 @@ public final class GraphFiles {
                 b.relationshipCount(), problems);
     }
 
+    /** The demo data as a bare TinkerGraph (to serve it from a Gremlin Server in tests and benchmarks). */
+    static TinkerGraph demoGraph(GraphSchema demoSchema) {
+        GraphBuilder b = new GraphBuilder();
+        RdfImport.load(List.of(demoSource()), demoSchema, b);
+        return b.graph();
+    }
+
     private static String demoSource() {
         return DEMO_DATA;
     }
