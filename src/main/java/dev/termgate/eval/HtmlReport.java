@@ -160,7 +160,7 @@ public final class HtmlReport {
         int rowH = 24;
         int h = Math.max(1, bars.size()) * rowH + 10;
         StringBuilder s = new StringBuilder();
-        s.append(String.format(Locale.ROOT, "<svg id=\"%s\" class=\"chart\" xmlns=\"http://www.w3.org/2000/svg\" width=\"%d\" height=\"%d\" role=\"img\">%n",
+        s.append(String.format(Locale.ROOT, "<svg id=\"%s\" class=\"chart\" width=\"%d\" height=\"%d\" role=\"img\">%n",
                 id, labelW + barW + 140, h));
         int y = 5;
         for (Bar bar : bars) {
@@ -182,7 +182,7 @@ public final class HtmlReport {
         int w = Math.max(1, counts.size()) * colW + 20;
         int max = counts.values().stream().mapToInt(Integer::intValue).max().orElse(1);
         StringBuilder s = new StringBuilder();
-        s.append(String.format(Locale.ROOT, "<svg id=\"%s\" class=\"chart\" xmlns=\"http://www.w3.org/2000/svg\" width=\"%d\" height=\"%d\" role=\"img\">%n",
+        s.append(String.format(Locale.ROOT, "<svg id=\"%s\" class=\"chart\" width=\"%d\" height=\"%d\" role=\"img\">%n",
                 id, w, chartH + 45));
         int x = 10;
         for (Map.Entry<String, Integer> e : counts.entrySet()) {
