@@ -14,6 +14,8 @@ import dev.termgate.graph.ImportException;
 import dev.termgate.parser.CypherParser;
 import dev.termgate.parser.ParseResult;
 import dev.termgate.query.Query;
+import dev.termgate.repair.CheckResult;
+import dev.termgate.repair.QueryCheck;
 import dev.termgate.schema.GraphSchema;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -87,18 +89,36 @@ public final class RunCommand implements Callable<Integer> {
         Limits limits = new Limits(Duration.ofMillis(Math.round(timeout * 1000)), maxRows, Limits.DEFAULT_MAX_INTERMEDIATE);
 
         GraphSchema schema = schemaFree ? GraphSchema.empty() : ontology.schema(err);
-        // Parse everything first: an invalid query is reported before any graph is opened.
-        CypherParser parser = new CypherParser();
+        // Check everything first (parser, analyzer, certain repairs): nothing invalid is run, and an invalid
+        // query is reported before any graph is opened.
         List<Query> trees = new ArrayList<>();
+        List<String> runTexts = new ArrayList<>();
         boolean invalid = false;
+        CypherParser parser = new CypherParser();
         for (String t : texts) {
-            ParseResult r = parser.parse(t);
-            if (!r.isValid()) {
-                err.print(r.render());
+            CheckResult c = QueryCheck.check(t, schemaFree ? null : schema, QueryCheck.Mode.REPAIR);
+            if (!c.valid()) {
+                err.print(c.report());
                 err.flush();
                 invalid = true;
                 trees.add(null);
-            } else trees.add(r.tree());
+                runTexts.add(t);
+                continue;
+            }
+            String text = t;
+            Query tree = c.runnableTree().orElseThrow();
+            if (c.wasRepaired() && c.repaired().isPresent()) {
+                err.print(c.report());
+                err.flush();
+                // Re-read the repaired text so that column names follow what is shown.
+                ParseResult again = parser.parse(c.repaired().get());
+                if (again.isValid()) {
+                    text = c.repaired().get();
+                    tree = again.tree();
+                }
+            }
+            trees.add(tree);
+            runTexts.add(text);
         }
         if (invalid && texts.size() == 1) return Exit.INVALID;
 
@@ -106,7 +126,7 @@ public final class RunCommand implements Callable<Integer> {
         try (Engine engine = open(schema, err)) {
             for (int i = 0; i < texts.size(); i++) {
                 if (trees.get(i) == null) continue;
-                Request req = new Request(trees.get(i), texts.get(i), schema, java.util.Map.of(), limits);
+                Request req = new Request(trees.get(i), runTexts.get(i), schema, java.util.Map.of(), limits);
                 if (texts.size() > 1 && fmt.equals("table")) out.println("-- " + texts.get(i).strip().replace('\n', ' '));
                 if (explain) out.print(engine.explain(req).render());
                 RunControl control = RunControl.of(limits);
