@@ -8,6 +8,7 @@ import dev.termgate.schema.RelType;
 import dev.termgate.schema.TermInfo;
 
 import java.util.ArrayList;
+import java.util.Collections;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
@@ -16,6 +17,9 @@ import java.util.Set;
 import java.util.SortedSet;
 import java.util.TreeMap;
 import java.util.TreeSet;
+import java.util.WeakHashMap;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.function.Supplier;
 
 /**
  * The card's text layout (termgate's own notation, documented in the README, "Schema card").
@@ -65,29 +69,63 @@ final class CardText {
 
     /** The body: label lines, then relationship lines, each section with its heading when it has lines. */
     static List<String> body(GraphSchema s, CardScope scope) {
-        List<String> out = new ArrayList<>();
         Map<String, SortedSet<String>> ownKeys = ownKeys(s, scope);
-        List<String> labelLines = new ArrayList<>();
-        for (String l : scope.labels()) {
-            NodeLabel label = s.labels().get(l);
-            if (label != null) labelLines.add(labelLine(s, label, ownKeys.getOrDefault(l, new TreeSet<>())));
-        }
-        SortedSet<String> anyKeys = ownKeys.get(ANY);
-        if (anyKeys != null && !anyKeys.isEmpty()) labelLines.add(ANY + " " + keyList(s, anyKeys));
-        if (!labelLines.isEmpty()) {
-            out.add(LABELS);
-            out.addAll(labelLines);
-        }
-        List<String> relLines = new ArrayList<>();
-        for (String r : scope.relTypes()) {
-            RelType rel = s.relTypes().get(r);
-            if (rel != null) relLines.add(relLine(s, scope, rel));
-        }
-        if (!relLines.isEmpty()) {
-            out.add(RELATIONSHIPS);
-            out.addAll(relLines);
+        List<String> out = new ArrayList<>();
+        for (String key : lineKeys(scope)) {
+            String line = line(s, scope, ownKeys, key);
+            if (line != null) out.add(line);
         }
         return out;
+    }
+
+    /*
+     * Every line of the body has a key, so that a question card can re-render only the lines an added term
+     * changes: LABELS_KEY and RELATIONSHIPS_KEY for the headings, "L:" + label, ANY for the domain-free keys,
+     * "R:" + relationship type.
+     */
+    static final String LABELS_KEY = "[L]";
+    static final String RELATIONSHIPS_KEY = "[R]";
+
+    static String labelKey(String label) {
+        return "L:" + label;
+    }
+
+    static String relKey(String rel) {
+        return "R:" + rel;
+    }
+
+    /** The keys of the body's possible lines in print order. */
+    static List<String> lineKeys(CardScope scope) {
+        List<String> keys = new ArrayList<>(scope.size() + 3);
+        keys.add(LABELS_KEY);
+        for (String l : scope.labels()) keys.add(labelKey(l));
+        keys.add(ANY);
+        keys.add(RELATIONSHIPS_KEY);
+        for (String r : scope.relTypes()) keys.add(relKey(r));
+        return keys;
+    }
+
+    /** The line with this key, or {@code null} when the card has no such line. */
+    static String line(GraphSchema s, CardScope scope, Map<String, SortedSet<String>> ownKeys, String key) {
+        if (key.equals(LABELS_KEY)) {
+            boolean any = scope.labels().stream().anyMatch(s.labels()::containsKey) || ownKeys.containsKey(ANY);
+            return any ? LABELS : null;
+        }
+        if (key.equals(RELATIONSHIPS_KEY)) {
+            return scope.relTypes().stream().anyMatch(s.relTypes()::containsKey) ? RELATIONSHIPS : null;
+        }
+        if (key.equals(ANY)) {
+            SortedSet<String> anyKeys = ownKeys.get(ANY);
+            return anyKeys == null || anyKeys.isEmpty() ? null : ANY + " " + keyList(s, anyKeys);
+        }
+        String name = key.substring(2);
+        if (key.startsWith("L:")) {
+            NodeLabel label = s.labels().get(name);
+            return label == null || !scope.labels().contains(name) ? null
+                    : labelLine(s, label, ownKeys.getOrDefault(name, new TreeSet<>()));
+        }
+        RelType rel = s.relTypes().get(name);
+        return rel == null || !scope.relTypes().contains(name) ? null : relLine(s, scope, rel);
     }
 
     /** Keys of the scope by the shown label that declares them; domain-free keys under {@link #ANY}. */
@@ -112,19 +150,15 @@ final class CardText {
         if (!label.superLabels().isEmpty()) sb.append(" < ").append(String.join(", ", new TreeSet<>(label.superLabels())));
         if (!label.equivalents().isEmpty()) sb.append(" = ").append(String.join(", ", new TreeSet<>(label.equivalents())));
         if (!keys.isEmpty()) sb.append(' ').append(keyList(s, keys));
-        appendNotes(sb, label.info());
+        appendNotes(s, sb, label.info());
         return sb.toString();
     }
 
     private static String keyList(GraphSchema s, SortedSet<String> keys) {
         StringBuilder sb = new StringBuilder("{");
         for (String k : keys) {
-            PropertyKey key = s.properties().get(k);
             if (sb.length() > 1) sb.append(", ");
-            sb.append(k).append(':').append(key.valueType().word());
-            List<String> syn = Wording.synonyms(key.info(), LANG);
-            if (!syn.isEmpty()) sb.append(" ~").append(String.join("/", syn));
-            if (key.info().deprecated()) sb.append(DEPRECATED);
+            sb.append(memo(s, "k:" + k, () -> keyEntry(s.properties().get(k))));
         }
         return sb.append('}').toString();
     }
@@ -135,15 +169,37 @@ final class CardText {
         List<Endpoint> pairs = shownEndpoints(s, scope, rel);
         if (!pairs.isEmpty()) sb.append(": ").append(endpointGroups(pairs, rel.symmetric()));
         rel.inverseOf().ifPresent(inv -> sb.append(" (inverse ").append(inv).append(')'));
-        appendNotes(sb, rel.info());
+        appendNotes(s, sb, rel.info());
         return sb.toString();
     }
 
-    private static void appendNotes(StringBuilder sb, TermInfo info) {
-        List<String> syn = Wording.synonyms(info, LANG);
+    private static String keyEntry(PropertyKey key) {
+        StringBuilder sb = new StringBuilder(key.name()).append(':').append(key.valueType().word());
+        List<String> syn = Wording.synonyms(key.info(), LANG);
         if (!syn.isEmpty()) sb.append(" ~").append(String.join("/", syn));
-        if (info.deprecated()) sb.append(DEPRECATED);
-        Wording.shortComment(info, LANG).ifPresent(c -> sb.append(" // ").append(c));
+        if (key.info().deprecated()) sb.append(DEPRECATED);
+        return sb.toString();
+    }
+
+    private static void appendNotes(GraphSchema s, StringBuilder sb, TermInfo info) {
+        sb.append(memo(s, "n:" + info.kind() + ":" + info.name(), () -> {
+            StringBuilder notes = new StringBuilder();
+            List<String> syn = Wording.synonyms(info, LANG);
+            if (!syn.isEmpty()) notes.append(" ~").append(String.join("/", syn));
+            if (info.deprecated()) notes.append(DEPRECATED);
+            Wording.shortComment(info, LANG).ifPresent(c -> notes.append(" // ").append(c));
+            return notes.toString();
+        }));
+    }
+
+    /**
+     * Pieces of text that depend on one term only (its synonyms, trimmed comment, key entry), kept per schema:
+     * a question card renders each line many times while it tries terms against the budget.
+     */
+    private static final Map<GraphSchema, Map<String, String>> MEMO = Collections.synchronizedMap(new WeakHashMap<>());
+
+    private static String memo(GraphSchema s, String key, Supplier<String> make) {
+        return MEMO.computeIfAbsent(s, x -> new ConcurrentHashMap<>()).computeIfAbsent(key, k -> make.get());
     }
 
     /**

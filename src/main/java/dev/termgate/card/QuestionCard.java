@@ -25,8 +25,9 @@ import java.util.Set;
  * Chooses and renders the card for one question within a token budget (see {@link Cards#forQuestion}).
  *
  * <p>Counting: lines never start with white space, and both encodings split text at line ends before
- * merging bytes, so the tokens of the card are the sum of its lines' tokens (checked in CardBudgetTest against
- * a count of the whole text). Each distinct line is counted once, which keeps trying a term cheap.
+ * merging bytes, so the tokens of the card are the sum of its lines' tokens (checked in CardTextTest against a
+ * count of the whole text). Trying a term re-renders only the lines it changes, and each distinct line is
+ * counted once, so a ranking of hundreds of terms over a large ontology stays cheap.
  */
 final class QuestionCard {
 
@@ -43,6 +44,15 @@ final class QuestionCard {
     private final int budget;
     private final TokenCounter counter;
     private final Map<String, Integer> lineTokens = new HashMap<>();
+
+    /** The card as chosen so far: its scope, the tokens of each body line by key, and their sum. */
+    private CardScope current = CardScope.of(Set.of(), Set.of(), Set.of());
+    private final Map<String, Integer> lineCost = new HashMap<>();
+    private int bodyTokens;
+    private final Map<String, Set<String>> mentionedByRel = new HashMap<>();
+
+    /** A card with an addition tried: its scope, the new costs of the lines it changed, the new body sum. */
+    private record Trial(CardScope scope, Map<String, Integer> costs, int body) {}
 
     private final Map<Ref, LinkedTerm> ranked = new LinkedHashMap<>();
     private final Map<Ref, Integer> rank = new HashMap<>();
@@ -75,11 +85,12 @@ final class QuestionCard {
             remaining--;
             if (shown.containsKey(r)) continue;
             Addition add = additionFor(r);
+            Trial trial = trial(add);
             // The footer is not known yet: reserve room for the longest it can become (every term after this one
             // left out too). Its token count grows with the number, so the final card stays within the budget.
-            int tokens = tokensWith(add, CardText.footer(skipped + remaining, budget));
+            int tokens = total(trial, CardText.footer(skipped + remaining, budget));
             if (tokens <= budget) {
-                commit(add);
+                commit(add, trial);
             } else {
                 skipped++;
                 smallestTried = Math.min(smallestTried, tokens);
@@ -93,9 +104,10 @@ final class QuestionCard {
             notices.add(leftOut + " ranked term" + (leftOut == 1 ? " was" : "s were") + " left out to stay within "
                     + budget + " tokens");
         }
-        CardScope scope = scope(Map.of());
+        CardScope scope = current;
         String text = CardText.join(lines(scope, footer));
         int tokens = counter.count(text);
+        assert tokens == total(new Trial(scope, Map.of(), bodyTokens), footer) : "line-by-line count differs";
         if (tokens > budget) {
             throw new IllegalStateException("card of " + tokens + " tokens exceeds its budget of " + budget);
         }
@@ -105,8 +117,9 @@ final class QuestionCard {
 
     /**
      * Budget left over goes to the keys of the labels shown, one key per label in turn (labels in the order
-     * they were chosen, keys by name), so that the model can also pick what to return. Deprecated keys are not
-     * added this way: only a linker's ranking puts them on a card.
+     * they were chosen, keys by name), so that the model can also pick what to return. A label gets no more keys
+     * after its first that does not fit. Deprecated keys are not added this way: only a linker's ranking puts
+     * them on a card.
      */
     private void fillKeys(Optional<String> footer) {
         List<List<String>> queues = new ArrayList<>();
@@ -120,20 +133,20 @@ final class QuestionCard {
                     .sorted().toList();
             if (!own.isEmpty()) queues.add(new ArrayList<>(own));
         }
-        boolean any = true;
-        while (any) {
-            any = false;
-            for (List<String> q : queues) {
-                while (!q.isEmpty()) {
-                    Ref k = new Ref(TermKind.PROPERTY, q.remove(0));
-                    if (shown.containsKey(k)) continue;
+        while (!queues.isEmpty()) {
+            for (var it = queues.iterator(); it.hasNext(); ) {
+                List<String> q = it.next();
+                Ref k = new Ref(TermKind.PROPERTY, q.remove(0));
+                if (!shown.containsKey(k)) {
                     Addition add = new Addition(Map.of(k, "key of a label shown, added with budget to spare"));
-                    if (tokensWith(add, footer) <= budget) {
-                        commit(add);
-                        any = true;
-                        break;
+                    Trial trial = trial(add);
+                    if (total(trial, footer) <= budget) {
+                        commit(add, trial);
+                    } else {
+                        q.clear(); // a label's line only grows: stop at its first key that does not fit
                     }
                 }
+                if (q.isEmpty()) it.remove();
             }
         }
     }
@@ -157,7 +170,7 @@ final class QuestionCard {
      * fewest, ties broken by the best rank of the missing ends, then by name.
      */
     private List<String> endpointsToAdd(RelType rel) {
-        CardScope now = scope(Map.of(new Ref(TermKind.RELATIONSHIP, rel.name()), ""));
+        CardScope now = extend(current, List.of(new Ref(TermKind.RELATIONSHIP, rel.name())));
         if (rel.superTypes().stream().anyMatch(now.relTypes()::contains) && CardText.ownEndpoints(schema, rel).isEmpty()) {
             return List.of();
         }
@@ -184,7 +197,7 @@ final class QuestionCard {
      */
     private Optional<String> holderToAdd(PropertyKey key) {
         if (key.anyDomain()) return Optional.empty();
-        Set<String> shownLabels = scope(Map.of()).labels();
+        Set<String> shownLabels = current.labels();
         if (key.domains().stream().anyMatch(shownLabels::contains)) return Optional.empty();
         Optional<String> inherited = key.domains().stream().sorted()
                 .filter(d -> shownLabels.stream().anyMatch(l -> schema.isSubLabel(l, d)))
@@ -201,19 +214,89 @@ final class QuestionCard {
                 .min().orElse(-1);
     }
 
-    private void commit(Addition add) {
+    private void commit(Addition add, Trial trial) {
         add.refs().forEach((r, why) -> {
             List<String> reasons = shown.computeIfAbsent(r, k -> new ArrayList<>());
             if (!why.isEmpty() && !reasons.contains(why)) reasons.add(why);
         });
+        current = trial.scope();
+        trial.costs().forEach((key, cost) -> {
+            if (cost == 0) lineCost.remove(key);
+            else lineCost.put(key, cost);
+        });
+        bodyTokens = trial.body();
     }
 
-    private int tokensWith(Addition add, Optional<String> footer) {
-        int sum = 0;
-        for (String line : lines(scope(add.refs()), footer)) {
-            sum += lineTokens.computeIfAbsent(line, l -> counter.count(l + "\n"));
+    private Trial trial(Addition add) {
+        CardScope scope = extend(current, add.refs().keySet());
+        Map<String, java.util.SortedSet<String>> ownKeys = CardText.ownKeys(schema, scope);
+        Map<String, Integer> costs = new HashMap<>();
+        int body = bodyTokens;
+        for (String key : changedLines(add, scope)) {
+            String line = CardText.line(schema, scope, ownKeys, key);
+            int cost = line == null ? 0 : count(line);
+            body += cost - lineCost.getOrDefault(key, 0);
+            costs.put(key, cost);
         }
-        return sum;
+        return new Trial(scope, costs, body);
+    }
+
+    private int total(Trial trial, Optional<String> footer) {
+        return count(CardText.questionHeader(schema, trial.scope())) + count(CardText.LEGEND) + trial.body()
+                + footer.map(this::count).orElse(0);
+    }
+
+    /**
+     * The body lines an addition can change: the headings, the lines of the terms added, the lines of the labels
+     * that hold an added key, and the lines of shown relationship types whose endpoints mention an added label
+     * or whose super type is added (its endpoints are then shown there).
+     */
+    private Set<String> changedLines(Addition add, CardScope scope) {
+        Set<String> keys = new LinkedHashSet<>(List.of(CardText.LABELS_KEY, CardText.RELATIONSHIPS_KEY));
+        Set<String> newLabels = new LinkedHashSet<>();
+        Set<String> newRels = new LinkedHashSet<>();
+        for (Ref r : add.refs().keySet()) {
+            switch (r.kind()) {
+                case LABEL -> {
+                    keys.add(CardText.labelKey(r.name()));
+                    newLabels.add(r.name());
+                }
+                case RELATIONSHIP -> {
+                    keys.add(CardText.relKey(r.name()));
+                    newRels.add(r.name());
+                }
+                case PROPERTY -> {
+                    PropertyKey key = schema.properties().get(r.name());
+                    if (key.anyDomain()) keys.add(CardText.ANY);
+                    for (String d : key.domains()) if (scope.labels().contains(d)) keys.add(CardText.labelKey(d));
+                }
+            }
+        }
+        for (String r : current.relTypes()) {
+            RelType rel = schema.relTypes().get(r);
+            boolean endsAdded = mentioned(rel).stream().anyMatch(newLabels::contains);
+            boolean superAdded = rel.superTypes().stream().anyMatch(newRels::contains);
+            if (endsAdded || superAdded) keys.add(CardText.relKey(r));
+        }
+        return keys;
+    }
+
+    /** Every label a relationship type's line could show: own, inverse and inherited endpoints. */
+    private Set<String> mentioned(RelType rel) {
+        return mentionedByRel.computeIfAbsent(rel.name(), n -> {
+            Set<String> out = new java.util.HashSet<>();
+            List<Endpoint> pairs = new ArrayList<>(CardText.ownEndpoints(schema, rel));
+            pairs.addAll(schema.effectiveEndpoints(n));
+            for (Endpoint e : pairs) {
+                if (e.from() != null) out.add(e.from());
+                if (e.to() != null) out.add(e.to());
+            }
+            return out;
+        });
+    }
+
+    private int count(String line) {
+        return lineTokens.computeIfAbsent(line, l -> counter.count(l + "\n"));
     }
 
     private List<String> lines(CardScope scope, Optional<String> footer) {
@@ -225,22 +308,18 @@ final class QuestionCard {
         return lines;
     }
 
-    /** The shown terms plus, when given, an addition being tried. */
-    private CardScope scope(Map<Ref, String> extra) {
-        Set<String> labels = new LinkedHashSet<>();
-        Set<String> rels = new LinkedHashSet<>();
-        Set<String> keys = new LinkedHashSet<>();
-        for (Ref r : shown.keySet()) add(r, labels, rels, keys);
-        for (Ref r : extra.keySet()) add(r, labels, rels, keys);
-        return CardScope.of(labels, rels, keys);
-    }
-
-    private static void add(Ref r, Set<String> labels, Set<String> rels, Set<String> keys) {
-        switch (r.kind()) {
-            case LABEL -> labels.add(r.name());
-            case RELATIONSHIP -> rels.add(r.name());
-            case PROPERTY -> keys.add(r.name());
+    private static CardScope extend(CardScope scope, java.util.Collection<Ref> refs) {
+        Set<String> labels = new LinkedHashSet<>(scope.labels());
+        Set<String> rels = new LinkedHashSet<>(scope.relTypes());
+        Set<String> keys = new LinkedHashSet<>(scope.keys());
+        for (Ref r : refs) {
+            switch (r.kind()) {
+                case LABEL -> labels.add(r.name());
+                case RELATIONSHIP -> rels.add(r.name());
+                case PROPERTY -> keys.add(r.name());
+            }
         }
+        return CardScope.of(labels, rels, keys);
     }
 
     private List<CardTerm> terms() {
