@@ -35,6 +35,7 @@ public final class AskCommand implements Callable<Integer> {
     java.util.List<String> words;
 
     @Mixin ModelOptions model;
+    @Mixin OntologyOptions ontology;
     @Mixin GraphOptions graph;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
@@ -68,7 +69,7 @@ public final class AskCommand implements Callable<Integer> {
         var settings = model.settings();
         var prompts = model.prompts();
         RunLimits limits = graph.limits();
-        Pipeline pipeline = AskWiring.open(factory, graph.spec());
+        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, err));
         try {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts), pipeline.runner());

@@ -55,6 +55,7 @@ public final class BatchCommand implements Callable<Integer> {
     boolean noProgress;
 
     @Mixin ModelOptions model;
+    @Mixin OntologyOptions ontology;
     @Mixin GraphOptions graph;
 
     @Spec picocli.CommandLine.Model.CommandSpec spec;
@@ -86,7 +87,7 @@ public final class BatchCommand implements Callable<Integer> {
                 err.println("termgate: all " + qs.questions().size() + " questions already have a result in " + out);
                 return Exit.OK;
             }
-            Pipeline pipeline = AskWiring.open(factory, graph.spec());
+            Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, err));
             try {
                 Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
                 Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts),

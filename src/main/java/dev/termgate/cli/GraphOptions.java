@@ -1,20 +1,16 @@
 package dev.termgate.cli;
 
+import dev.termgate.schema.GraphSchema;
 import dev.termgate.translate.PipelineSpec;
 import dev.termgate.translate.RunLimits;
 import picocli.CommandLine.Option;
 
 import java.nio.file.Path;
 import java.time.Duration;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Optional;
 
-/** Which ontology and graph a question is asked of, and the limits of a run; shared by ask, shell and batch. */
+/** Which graph a question is asked of, and the limits of a run; shared by ask, shell and batch. */
 public final class GraphOptions {
-
-    @Option(names = "--ontology", paramLabel = "FILE", description = "ontology file(s) (default: the bundled demo ontology)")
-    List<Path> ontologies = new ArrayList<>();
 
     @Option(names = "--schema-free", description = "use no ontology: every label, type and property is accepted")
     boolean schemaFree;
@@ -35,11 +31,13 @@ public final class GraphOptions {
     @Option(names = "--max-rows", paramLabel = "N", defaultValue = "1000", description = "row cap of a run (default: ${DEFAULT-VALUE})")
     int maxRows;
 
-    PipelineSpec spec() {
+    /** Checks the options and loads the ontology (unless schema-free). */
+    PipelineSpec spec(OntologyOptions ontology, java.io.PrintWriter err) {
         if (graph != null && remote != null) throw new UserError(Exit.USAGE, "give either --graph or --remote, not both");
-        if (schemaFree && !ontologies.isEmpty()) throw new UserError(Exit.USAGE, "give either --ontology or --schema-free, not both");
+        if (schemaFree && !ontology.sources().isEmpty()) throw new UserError(Exit.USAGE, "give either --ontology or --schema-free, not both");
         if (budget < 50) throw new UserError(Exit.USAGE, "--budget must be at least 50 tokens");
-        return new PipelineSpec(ontologies, schemaFree, Optional.ofNullable(graph), Optional.ofNullable(remote), budget);
+        GraphSchema schema = schemaFree ? GraphSchema.empty() : ontology.schema(err);
+        return new PipelineSpec(schema, schemaFree, Optional.ofNullable(graph), Optional.ofNullable(remote), budget);
     }
 
     RunLimits limits() {

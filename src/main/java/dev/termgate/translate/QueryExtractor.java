@@ -68,7 +68,7 @@ public final class QueryExtractor {
             String t = stripInlineMarks(line.strip());
             if (run == null) {
                 if (startsWithClause(t)) run = new StringBuilder(t);
-            } else if (t.isEmpty() || t.startsWith("```") || looksLikeProse(t)) {
+            } else if (t.isEmpty() || t.startsWith("```") || t.startsWith("~~~") || looksLikeProse(t)) {
                 runs.add(trimQuery(run.toString()));
                 run = startsWithClause(t) ? new StringBuilder(t) : null;
             } else {

@@ -77,7 +77,7 @@ class AskAndBatchCasesTest {
         ToyPipeline toy = new ToyPipeline();
         calls.clear();
         List<String> args = new java.util.ArrayList<>(List.of("--model", server.modelOption("m1"), "--base-url", server.baseUrl(),
-                "--model-timeout", "1"));
+                "--model-timeout", "1", "--schema-free"));
         if (!List.of(extra).contains("--retries")) args.addAll(List.of("--retries", "2"));
         args.addAll(List.of(extra));
         List<String> askArgs = new java.util.ArrayList<>(args);

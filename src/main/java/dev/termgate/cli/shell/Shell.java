@@ -59,6 +59,7 @@ public final class Shell {
 
     public Shell(Terminal terminal, ShellState state, Optional<Path> historyFile) {
         this.terminal = terminal;
+        interruptOnCtrlC(terminal);
         this.out = terminal.writer();
         this.state = state;
         this.historyFile = historyFile;
@@ -275,7 +276,10 @@ public final class Shell {
                     // Reading lets a terminal without signals turn a typed Ctrl-C into Signal.INT.
                     if (inputOpen) {
                         try {
-                            if (keys.read(10) == NonBlockingReader.EOF) inputOpen = false;
+                            int c = keys.read(10);
+                            if (c == NonBlockingReader.EOF) inputOpen = false;
+                            // A terminal with signals off hands the interrupt character over as a key.
+                            if (c == 3) f.cancel(true);
                         } catch (IOException e) {
                             inputOpen = false;
                         }
@@ -304,6 +308,20 @@ public final class Shell {
         } finally {
             terminal.handle(Terminal.Signal.INT, previous);
             out.flush();
+        }
+    }
+
+    /** A dumb terminal starts with signals off and no end-of-file key; Ctrl-C and Ctrl-D must still work as on any terminal. */
+    private static void interruptOnCtrlC(Terminal terminal) {
+        org.jline.terminal.Attributes a = terminal.getAttributes();
+        if (!a.getLocalFlag(org.jline.terminal.Attributes.LocalFlag.ISIG)) {
+            a.setLocalFlag(org.jline.terminal.Attributes.LocalFlag.ISIG, true);
+            a.setControlChar(org.jline.terminal.Attributes.ControlChar.VINTR, 3);
+            terminal.setAttributes(a);
+        }
+        if (a.getControlChar(org.jline.terminal.Attributes.ControlChar.VEOF) <= 0) {
+            a.setControlChar(org.jline.terminal.Attributes.ControlChar.VEOF, 4);
+            terminal.setAttributes(a);
         }
     }
 

@@ -32,7 +32,10 @@ final class ShellSyntax {
 
     private ShellSyntax() {}
 
-    /** A query line continues while brackets or quotes are open; any line continues after a trailing backslash. */
+    /**
+     * Any line continues after a trailing backslash. A query continues while a bracket or quote is open, and until
+     * it has a RETURN (every read query ends with one) unless it ends with {@code ;} or an empty line.
+     */
     static final class Parser extends DefaultParser {
         @Override
         public ParsedLine parse(String line, int cursor, ParseContext context) {
@@ -48,6 +51,7 @@ final class ShellSyntax {
         if (!QueryExtractor.startsWithClause(text)) return false;
         int depth = 0;
         char quote = 0;
+        boolean returns = false;
         for (int i = 0; i < text.length(); i++) {
             char c = text.charAt(i);
             if (quote != 0) {
@@ -55,18 +59,27 @@ final class ShellSyntax {
                 else if (c == quote) quote = 0;
             } else if (c == '\'' || c == '"' || c == '`') {
                 quote = c;
+            } else if ((c == 'R' || c == 'r') && text.regionMatches(true, i, "RETURN", 0, 6)
+                    && (i == 0 || !Character.isLetterOrDigit(text.charAt(i - 1)))
+                    && (i + 6 == text.length() || !Character.isLetterOrDigit(text.charAt(i + 6)))) {
+                returns = true;
             } else if (c == '(' || c == '[' || c == '{') {
                 depth++;
             } else if (c == ')' || c == ']' || c == '}') {
                 depth--;
             }
         }
-        return quote != 0 || depth > 0;
+        if (quote != 0 || depth > 0) return true;
+        String t = text.stripTrailing();
+        boolean ended = t.endsWith(";") || text.endsWith("\n") || text.endsWith("\n ");
+        return !returns && !ended;
     }
 
     /** Joins the physical lines of one input: a trailing backslash is a line continuation. */
     static String joined(String raw) {
-        return raw.replace("\\\r\n", "\n").replace("\\\n", "\n").strip();
+        String t = raw.replace("\\\r\n", "\n").replace("\\\n", "\n").strip();
+        while (t.endsWith(";")) t = t.substring(0, t.length() - 1).strip();
+        return t;
     }
 
     static Highlighter highlighter() {
