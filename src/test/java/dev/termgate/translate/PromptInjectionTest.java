@@ -72,6 +72,48 @@ class PromptInjectionTest {
         }
     }
 
+    /** The same, through the project's real parser, analyzer and repair on the demo ontology. */
+    @Test
+    void theRealGateRefusesEveryWriteTheModelReturns() throws Exception {
+        var schema = dev.termgate.ontology.OntologyLoader.load(List.of()).schema();
+        QueryGate gate = StandardGate.forSchema(schema, false);
+        QueryGate free = StandardGate.forSchema(dev.termgate.schema.GraphSchema.empty(), true);
+        List<String> ran = new java.util.concurrent.CopyOnWriteArrayList<>();
+        QueryRunner recording = (c, limits) -> {
+            ran.add(c.query());
+            return new RunResult(List.of(), List.of(), false, "", List.of());
+        };
+        AtomicInteger next = new AtomicInteger();
+        try (ScriptedModelServer server = new ScriptedModelServer(ScriptedModelServer.Protocol.OPENAI,
+                seen -> ScriptedModelServer.answer(WRITES.get(Math.floorMod(next.getAndIncrement(), WRITES.size()))))) {
+            ModelSettings s = ModelSettings.resolve(Optional.of(server.modelOption("obedient")), Optional.of(server.baseUrl()),
+                    Optional.of(Duration.ofSeconds(5)), Map.of(), Optional.empty()).withRetries(0);
+            Translator t = ModelTranslator.create(s, Prompts.builtIn(), 3);
+            int cases = 0;
+            for (QueryGate g : List.of(gate, free)) {
+                Asker asker = new Asker(new TranslationLoop(t, g, StandardPipeline.wholeCard(schema), 3), recording);
+                for (String q : QUESTIONS) {
+                    Answer a = asker.ask(q, RunLimits.DEFAULT);
+                    assertFalse(a.outcome().valid(), q + " → " + a.outcome().accepted());
+                    assertTrue(a.outcome().attempts().stream().allMatch(at -> at.checked().isEmpty()
+                            || at.checked().get().diagnostics().stream().anyMatch(d -> d.code().number() / 1000 == 4)),
+                            "every attempt refused as a write: " + a.outcome().diagnostics());
+                    cases++;
+                }
+            }
+            for (String w : WRITES) {
+                for (String c : QueryExtractor.candidates(w)) {
+                    Checked checked = gate.check(c);
+                    assertFalse(checked.valid(), c);
+                    assertTrue(checked.diagnostics().stream().anyMatch(d -> d.code().number() / 1000 == 4), c + " → " + checked.diagnostics());
+                    cases++;
+                }
+            }
+            System.out.println("prompt injection, real gate: " + cases + " cases, " + cases + " refused, 0 run (100%)");
+            assertEquals(List.of(), ran, "no write was ever run");
+        }
+    }
+
     @Test
     void theRunnerRefusesAnythingTheGateDidNotAccept() {
         ToyPipeline toy = new ToyPipeline();

@@ -1,0 +1,57 @@
+package dev.termgate.bench;
+
+import dev.termgate.cli.CliRun;
+import dev.termgate.cli.TestCommands;
+import dev.termgate.translate.ScriptedModelServer;
+import org.junit.jupiter.api.Tag;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+/**
+ * Batch throughput against a model with a fixed latency: 200 questions, 200 ms each, 8 jobs. The ideal is
+ * 200 × 200 ms / 8 = 5.0 s after start-up; the target (issue 6) is within 5% of it.
+ * Run: {@code mvn -B -o -Pbench verify -Dtest=BatchThroughputBench}
+ */
+@Tag("bench")
+class BatchThroughputBench {
+
+    @Test
+    void twoHundredQuestionsEightJobs(@TempDir Path dir) throws Exception {
+        int n = 200;
+        long latency = 200;
+        int jobs = 8;
+        long[] first = {0};
+        try (ScriptedModelServer server = new ScriptedModelServer(ScriptedModelServer.Protocol.OPENAI, seen -> {
+            synchronized (first) {
+                if (first[0] == 0) first[0] = System.nanoTime();
+            }
+            return ScriptedModelServer.delay(latency, ScriptedModelServer.answer("```cypher\nMATCH (v:Vessel) RETURN v.name\n```"));
+        })) {
+            StringBuilder sb = new StringBuilder();
+            for (int i = 0; i < n; i++) sb.append("question number ").append(i).append('\n');
+            Path q = Files.writeString(dir.resolve("q.txt"), sb.toString());
+            Path out = dir.resolve("out.jsonl");
+            long t0 = System.nanoTime();
+            CliRun.Result r = TestCommands.batch(q, out, "--model", server.modelOption("m"), "--base-url", server.baseUrl(),
+                    "--jobs", Integer.toString(jobs), "--no-progress");
+            long t1 = System.nanoTime();
+            assertEquals(0, r.code(), r.all());
+            assertEquals(n, Files.readAllLines(out).size());
+            double startup = (first[0] - t0) / 1e6;
+            double wall = (t1 - t0) / 1e6;
+            double ideal = n * latency / (double) jobs;
+            double afterStartup = wall - startup;
+            System.out.printf(Locale.ROOT, "batch bench: %d questions, %d ms latency, %d jobs: wall %.0f ms, start-up %.0f ms, "
+                    + "after start-up %.0f ms, ideal %.0f ms, overhead %.1f%%%n", n, latency, jobs, wall, startup, afterStartup,
+                    ideal, 100 * (afterStartup - ideal) / ideal);
+            assertTrue(afterStartup <= ideal * 1.05, "within 5% of the ideal");
+        }
+    }
+}
