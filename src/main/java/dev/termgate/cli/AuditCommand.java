@@ -43,6 +43,7 @@ public final class AuditCommand implements Callable<Integer> {
     @Option(names = "--html", paramLabel = "FILE", description = "also write the coverage view as a self-contained HTML page")
     Path html;
 
+    @Mixin OntologyOptions ontology;
     @Mixin GraphOptions graph;
 
     @Spec picocli.CommandLine.Model.CommandSpec spec;
@@ -75,7 +76,7 @@ public final class AuditCommand implements Callable<Integer> {
                 read = AuditInput.batch(batchFile);
                 schema = schema();
             } else {
-                pipeline = AskWiring.open(factory, graph.spec());
+                pipeline = AskWiring.open(factory, graph.spec(ontology, err));
                 read = AuditInput.queries(queries, pipeline.gate());
                 schema = pipeline.schema();
             }
@@ -99,10 +100,6 @@ public final class AuditCommand implements Callable<Integer> {
     /** The ontology of the audit: --ontology files, the demo ontology by default, none with --schema-free. */
     private GraphSchema schema() {
         if (graph.schemaFree) return GraphSchema.empty();
-        try {
-            return OntologyLoader.load(graph.ontologies.stream().map(Path::toString).toList()).schema();
-        } catch (OntologyException e) {
-            throw new UserError(e.serviceFailure() ? Exit.SERVICE : Exit.INVALID, e.getMessage());
-        }
+        return ontology.schema(spec.commandLine().getErr());
     }
 }
