@@ -28,7 +28,7 @@ public final class ImportCommand implements Callable<Integer> {
     @Parameters(arity = "1..*", paramLabel = "INPUT", description = "data files (.ttl .nt .jsonld … .csv .graphml .cypher) or directories of CSV files")
     List<Path> inputs;
 
-    @Option(names = {"-o", "--output"}, required = true, paramLabel = "FILE", description = "the graph file to write: .kryo (fast to reload) or .graphml")
+    @Option(names = {"-o", "--output"}, required = true, paramLabel = "FILE", description = "the graph file to write: .tgraph (fast to reload) or .graphml")
     Path output;
 
     @Override

@@ -51,7 +51,7 @@ public final class RunCommand implements Callable<Integer> {
     @Option(names = "--file", paramLabel = "FILE", description = "read queries from FILE (- for standard input), separated by blank lines")
     String file;
 
-    @Option(names = "--graph", paramLabel = "FILE", description = "graph to run on (repeatable): .kryo (from import), .graphml, .cypher, .csv files or a directory of them, RDF data; default: the demo graph")
+    @Option(names = "--graph", paramLabel = "FILE", description = "graph to run on (repeatable): .tgraph (from import), .graphml, .cypher, .csv files or a directory of them, RDF data; default: the demo graph")
     List<Path> graph = new ArrayList<>();
 
     @Option(names = "--remote", paramLabel = "URL", description = "run on a Gremlin Server, e.g. ws://HOST:8182/gremlin")

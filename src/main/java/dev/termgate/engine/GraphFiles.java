@@ -20,7 +20,7 @@ import java.util.Map;
 import java.util.stream.Stream;
 
 /**
- * Opens graphs from files, choosing the reader by extension: {@code .kryo} (an imported graph file),
+ * Opens graphs from files, choosing the reader by extension: {@code .tgraph} (an imported graph file),
  * {@code .graphml}/{@code .xml}, {@code .cypher}/{@code .cql} (CREATE scripts), {@code .csv} files or a
  * directory of them, and RDF ({@code .ttl .nt .nq .trig .jsonld .rdf .owl}) mapped through the ontology.
  */
@@ -69,7 +69,7 @@ public final class GraphFiles {
         return inputs.size() == 1 ? inputs.get(0).toString() : inputs.size() + " files";
     }
 
-    /** Reads the inputs and writes the imported graph file ({@code .kryo}, or GraphML for {@code .graphml}). */
+    /** Reads the inputs and writes the imported graph file ({@code .tgraph}, or GraphML for {@code .graphml}). */
     public static Loaded importTo(List<Path> inputs, GraphSchema schema, Path output) {
         List<Diagnostic> problems = new ArrayList<>();
         TinkerGraph g = read(inputs, schema, problems);
@@ -92,9 +92,9 @@ public final class GraphFiles {
                 throw new ImportException("cannot read " + p + ": no such file");
             } else files.add(p);
         }
-        List<Path> binary = files.stream().filter(f -> ext(f).equals("kryo")).toList();
+        List<Path> binary = files.stream().filter(f -> ext(f).equals("tgraph")).toList();
         if (!binary.isEmpty()) {
-            if (files.size() > 1) throw new ImportException("an imported graph file (.kryo) must be opened alone");
+            if (files.size() > 1) throw new ImportException("an imported graph file (.tgraph) must be opened alone");
             return GraphIo.readBinary(binary.get(0));
         }
         List<Path> graphml = files.stream().filter(f -> ext(f).equals("graphml") || ext(f).equals("xml")).toList();
@@ -118,7 +118,7 @@ public final class GraphFiles {
                     }
                 }
                 case "ttl", "nt", "nq", "trig", "jsonld", "rdf", "owl", "n3" -> rdf.add(f.toString());
-                default -> throw new ImportException(f + ": unknown data format (expected .kryo, .graphml, .cypher, "
+                default -> throw new ImportException(f + ": unknown data format (expected .tgraph, .graphml, .cypher, "
                         + ".csv or RDF: .ttl .nt .nq .trig .jsonld .rdf .owl)");
             }
         }
