@@ -1,7 +1,6 @@
 package dev.termgate.analyze;
 
 import dev.termgate.diag.Diagnostic;
-import dev.termgate.query.Expr;
 import dev.termgate.query.Node;
 import dev.termgate.query.Pattern;
 import dev.termgate.query.Span;
@@ -35,9 +34,25 @@ final class Context {
     final List<PropertyUse> properties = new ArrayList<>();
     private final Map<String, TermUseBuilder> terms = new LinkedHashMap<>();
 
+    private List<Node> all;
+
     Context(GraphSchema schema, SchemaIndex index) {
         this.schema = schema;
         this.index = index;
+    }
+
+    /**
+     * Every node of the query of the given type, in pre-order. The tree is walked once per analysis and shared
+     * by the checks (a walk reads record components reflectively, which dominates the cost of small checks).
+     */
+    <T extends Node> List<T> nodes(Node root, Class<T> type) {
+        if (all == null) {
+            all = new ArrayList<>(64);
+            dev.termgate.query.Trees.walk(root, all::add);
+        }
+        List<T> out = new ArrayList<>();
+        for (Node n : all) if (type.isInstance(n)) out.add(type.cast(n));
+        return out;
     }
 
     boolean hasSchema() {
@@ -83,10 +98,6 @@ final class Context {
         sorted.sort(Comparator.comparingInt((Diagnostic d) -> d.span().isNone() ? Integer.MAX_VALUE : d.span().startOffset()));
         List<TermUse> uses = terms.values().stream().map(TermUseBuilder::build).toList();
         return new Analysis(sorted, fixes, uses);
-    }
-
-    static String describe(Expr.Variable v) {
-        return v.name();
     }
 
     private static final class TermUseBuilder {

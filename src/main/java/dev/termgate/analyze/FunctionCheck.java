@@ -10,7 +10,7 @@ import dev.termgate.query.Trees;
 final class FunctionCheck implements Check {
     @Override
     public void run(Query query, Context cx) {
-        for (Expr.FunctionCall f : Trees.find(query, Expr.FunctionCall.class)) {
+        for (Expr.FunctionCall f : cx.nodes(query, Expr.FunctionCall.class)) {
             Functions.Signature sig = Functions.lookup(f.qualifiedName());
             if (sig == null) {
                 cx.report(Diagnostic.of(Code.UNKNOWN_FUNCTION, f, f.qualifiedName())

@@ -25,7 +25,7 @@ final class LiteralTypeCheck implements Check {
 
     @Override
     public void run(Query query, Context cx) {
-        for (Expr.Binary b : Trees.find(query, Expr.Binary.class)) {
+        for (Expr.Binary b : cx.nodes(query, Expr.Binary.class)) {
             switch (b.op()) {
                 case EQ, NE, LT, GT, LE, GE -> {
                     compare(b.left(), b.right(), cx);

@@ -13,7 +13,7 @@ import dev.termgate.query.Trees;
 final class ReadOnlyCheck implements Check {
     @Override
     public void run(Query query, Context cx) {
-        for (Clause c : Trees.find(query, Clause.class)) {
+        for (Clause c : cx.nodes(query, Clause.class)) {
             if (!c.isWrite()) continue;
             cx.report(diagnostic(c));
         }

@@ -54,12 +54,16 @@ final class ScopeCheck implements Check {
 
     private static final class Walker {
         private final Context cx;
+        /** Column names of unaliased items are only needed to compare UNION parts (they cost a tree copy). */
+        private boolean needColumns;
 
         Walker(Context cx) {
             this.cx = cx;
         }
 
         void query(Query q, Map<String, Binding> outer, boolean subquery) {
+            boolean saved = needColumns;
+            needColumns = !q.unions().isEmpty();
             List<List<String>> columns = new ArrayList<>();
             for (SingleQuery sq : q.parts()) {
                 columns.add(single(sq, new LinkedHashMap<>(outer), subquery));
@@ -80,6 +84,7 @@ final class ScopeCheck implements Check {
                     }
                 }
             }
+            needColumns = saved;
         }
 
         /** Returns the column names of the final RETURN (null when there is none or it is RETURN *). */
@@ -271,7 +276,7 @@ final class ScopeCheck implements Check {
             // (openCypher TCK, ReturnOrderBy6 / Return6 / With6: AmbiguousAggregationExpression).
             Set<Object> groupingKeys = new HashSet<>();
             if (p.star()) scope.keySet().forEach(n -> groupingKeys.add(n));
-            for (Clause.ProjectionItem item : p.items()) {
+            for (Clause.ProjectionItem item : aggregating ? p.items() : List.<Clause.ProjectionItem>of()) {
                 if (containsAggregate(item.expr())) continue;
                 if (item.expr() instanceof Expr.Variable v) groupingKeys.add(v.name());
                 else if (item.expr() instanceof Expr.Property pr && pr.target() instanceof Expr.Variable) {
@@ -289,7 +294,7 @@ final class ScopeCheck implements Check {
                         cx.report(Diagnostic.of(Code.MISSING_ALIAS, item));
                         continue;
                     }
-                    name = "\u0000" + Columns.name(item.expr());
+                    name = "\u0000" + (needColumns ? Columns.name(item.expr()) : "#" + names.size());
                 } else if (!names.add(name)) {
                     cx.report(Diagnostic.of(Code.DUPLICATE_COLUMN, item.alias().map(a -> (Node) a).orElse(item), name));
                     continue;
@@ -302,7 +307,8 @@ final class ScopeCheck implements Check {
             }
             // ORDER BY sees the projected names, and also the earlier variables unless DISTINCT or an
             // aggregation dropped them; an expression equal to a projected one is always fine.
-            List<Expr> projected = p.items().stream().map(i -> (Expr) Trees.stripSpans(i.expr())).toList();
+            List<Expr> projected = p.orderBy().isEmpty() ? List.of()
+                    : p.items().stream().map(i -> (Expr) Trees.stripSpans(i.expr())).toList();
             Map<String, Binding> orderScope = new LinkedHashMap<>();
             boolean dropping = p.distinct() || aggregating;
             if (!dropping) orderScope.putAll(scope);
@@ -698,6 +704,19 @@ final class ScopeCheck implements Check {
     /** Whether an aggregation is evaluated by this expression itself (not inside a nested subquery). */
     static boolean containsAggregate(Expr e) {
         if (isAggregate(e)) return true;
+        // The common forms without reflection: this runs for every projected item.
+        if (e instanceof Expr.Variable || e instanceof Expr.Parameter || e instanceof Expr.IntegerLit
+                || e instanceof Expr.FloatLit || e instanceof Expr.StringLit || e instanceof Expr.BooleanLit
+                || e instanceof Expr.NullLit) {
+            return false;
+        }
+        if (e instanceof Expr.Property p) return containsAggregate(p.target());
+        if (e instanceof Expr.Binary b) return containsAggregate(b.left()) || containsAggregate(b.right());
+        if (e instanceof Expr.Unary u) return containsAggregate(u.operand());
+        if (e instanceof Expr.FunctionCall f) {
+            for (Expr a : f.args()) if (containsAggregate(a)) return true;
+            return false;
+        }
         if (e instanceof Expr.ExistsSubquery || e instanceof Expr.CountSubquery || e instanceof Expr.PatternComprehension) {
             return false;
         }

@@ -35,13 +35,13 @@ final class TermCheck implements Check {
     @Override
     public void run(Query query, Context cx) {
         Set<String> warned = new HashSet<>();
-        for (Pattern.NodePattern np : Trees.find(query, Pattern.NodePattern.class)) {
+        for (Pattern.NodePattern np : cx.nodes(query, Pattern.NodePattern.class)) {
             np.labels().ifPresent(l -> names(l, TermKind.LABEL, cx, warned));
         }
-        for (Pattern.RelPattern rp : Trees.find(query, Pattern.RelPattern.class)) {
+        for (Pattern.RelPattern rp : cx.nodes(query, Pattern.RelPattern.class)) {
             rp.types().ifPresent(l -> names(l, TermKind.RELATIONSHIP, cx, warned));
         }
-        for (Expr.HasLabels h : Trees.find(query, Expr.HasLabels.class)) {
+        for (Expr.HasLabels h : cx.nodes(query, Expr.HasLabels.class)) {
             Binding b = h.target() instanceof Expr.Variable v ? cx.binding(v) : null;
             TermKind kind = b != null && b.type == Type.RELATIONSHIP ? TermKind.RELATIONSHIP : TermKind.LABEL;
             names(h.labels(), kind, cx, warned);
