@@ -118,8 +118,11 @@ public final class Evaluator {
      * expression; -1 for a key that is not a column. Empty when the gold does not order.
      */
     static List<Integer> sortColumns(Checked gold) {
-        if (gold.tree().isEmpty()) return List.of();
-        Query q = gold.tree().get();
+        return gold.tree().map(Evaluator::sortColumns).orElse(List.of());
+    }
+
+    /** See {@link #sortColumns(Checked)}. */
+    public static List<Integer> sortColumns(Query q) {
         if (!q.unions().isEmpty()) return List.of();
         SingleQuery last = q.first();
         if (last.clauses().isEmpty() || !(last.clauses().get(last.clauses().size() - 1) instanceof Clause.Return ret)) return List.of();
