@@ -38,6 +38,9 @@ public final class OntologyOptions {
     @Option(names = "--no-cache", description = "Derive the schema again instead of reading the on-disk cache.")
     boolean noCache;
 
+    /** Warnings printed in full; the rest are counted. */
+    static final int MAX_WARNINGS = 10;
+
     private LoadedOntology loaded;
 
     /** The sources in order: every --ontology, then --sparql. Empty means the demo ontology. */
@@ -63,8 +66,14 @@ public final class OntologyOptions {
         } catch (OntologyException e) {
             throw new UserError(e.serviceFailure() ? Exit.SERVICE : Exit.INVALID, describe(e.problems()));
         }
-        for (Diagnostic d : loaded.problems()) {
-            if (d.severity() != Severity.INFO) err.println("termgate: " + d.severity().word() + " " + d.code().id() + ": " + d.fullMessage());
+        List<Diagnostic> shown = loaded.problems().stream().filter(d -> d.severity() != Severity.INFO).toList();
+        // Large vocabularies (schema.org: 43 name collisions) would bury the command's own output.
+        for (Diagnostic d : shown.subList(0, Math.min(MAX_WARNINGS, shown.size()))) {
+            err.println("termgate: " + d.severity().word() + " " + d.code().id() + ": " + d.fullMessage());
+        }
+        if (shown.size() > MAX_WARNINGS) {
+            err.println("termgate: … and " + (shown.size() - MAX_WARNINGS)
+                    + " more ontology warnings");
         }
         return loaded;
     }

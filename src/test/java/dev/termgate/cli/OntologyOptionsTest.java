@@ -8,6 +8,7 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.net.ServerSocket;
+import java.util.List;
 import java.util.concurrent.Callable;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
@@ -56,6 +57,17 @@ class OntologyOptionsTest {
         assertEquals(Exit.OK, r.code());
         assertEquals("4 labels", r.out().strip());
         assertTrue(r.err().contains("warning TG6005: classes 'Conveyance', 'Craft' and 'Vehicle' form a subclass cycle"), r.err());
+    }
+
+    @Test
+    void manyWarningsAreCounted() {
+        // schema.org gives 43 name collisions and 2 punned terms (see README, "Names").
+        Run r = run("probe", "--ontology", "src/test/resources/ontologies/schema.nq");
+        assertEquals(Exit.OK, r.code(), r.err());
+        List<String> lines = r.err().lines().toList();
+        assertEquals(OntologyOptions.MAX_WARNINGS + 1, lines.size(), r.err());
+        assertEquals("termgate: … and 35 more ontology warnings",
+                lines.get(lines.size() - 1));
     }
 
     @Test

@@ -40,6 +40,10 @@ class OntologyErrorsTest {
             "syntax-error.ttl   | TG6001 | syntax-error.ttl, line 6, column 1: Triples not terminated by DOT",
             // rdfs: is used on line 5, column 9 without being declared.
             "unknown-prefix.ttl | TG6001 | unknown-prefix.ttl, line 5, column 9: Undefined prefix: rdfs",
+            // The closing tag on line 5 does not match the element opened on line 4 (XML parser's position).
+            "syntax-error.rdf   | TG6001 | syntax-error.rdf, line 5, column 5: The element type",
+            // A trailing comma before '}' on line 5 is not JSON.
+            "syntax-error.jsonld | TG6001 | syntax-error.jsonld, line 5, column 1: The document could not be loaded or parsed",
             "empty.ttl          | TG6003 | empty.ttl holds no classes or properties",
             "no-terms.ttl       | TG6003 | no-terms.ttl holds no classes or properties",
             "missing.ttl        | TG6002 | cannot read src/test/resources/ontology-cases/missing.ttl: no such file",
@@ -71,6 +75,18 @@ class OntologyErrorsTest {
         assertTrue(e.serviceFailure());
         assertEquals(Code.ONTOLOGY_UNREADABLE, e.problems().get(0).code());
         assertTrue(e.getMessage().contains("SPARQL endpoint http://127.0.0.1:" + port), e.getMessage());
+    }
+
+    @Test
+    void unreachableUrlIsAServiceFailure() throws IOException {
+        int port;
+        try (ServerSocket s = new ServerSocket(0)) {
+            port = s.getLocalPort();
+        }
+        OntologyException e = assertThrows(OntologyException.class,
+                () -> OntologyLoader.load(List.of("http://127.0.0.1:" + port + "/ontology.ttl"), opts()));
+        assertTrue(e.serviceFailure(), e.getMessage());
+        assertTrue(e.getMessage().startsWith("TG6002: cannot read http://127.0.0.1:" + port + "/ontology.ttl"), e.getMessage());
     }
 
     @Test

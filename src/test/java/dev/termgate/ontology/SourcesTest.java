@@ -105,6 +105,10 @@ class SourcesTest {
             LoadedOntology lo = OntologyLoader.load(List.of("sparql:" + endpoint), LoadOptions.defaults().withCache(false));
             assertSameSchema(reference, lo.schema());
             assertTrue(lo.schema().labels().size() >= 25);
+            // The same store read as an RDF document over HTTP (SPARQL Graph Store Protocol GET; syntax from the
+            // reply's content type).
+            String document = "http://127.0.0.1:" + server.getPort() + "/ds?default";
+            assertSameSchema(reference, OntologyLoader.load(List.of(document), LoadOptions.defaults().withCache(false)).schema());
         } finally {
             server.stop();
         }
