@@ -30,7 +30,7 @@ public record LinkOptions(boolean lexical, boolean semantic, String language, Va
 
     /** Lexical and semantic evidence, language guessed, no values, the default cache directory. */
     public static LinkOptions defaults() {
-        return new LinkOptions(true, true, AUTO, ValueIndex.empty(), defaultCacheDir(), 300);
+        return new LinkOptions(true, true, AUTO, ValueIndex.empty(), defaultCacheDir(), 120);
     }
 
     /**

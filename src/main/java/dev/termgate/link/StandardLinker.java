@@ -44,6 +44,10 @@ final class StandardLinker implements SchemaLinker {
     static final int MAX_PHRASES = 4;
     static final int BETWEEN_PER_PAIR = 3;
     static final double DEPRECATED_FACTOR = 0.7;
+    /** A superclass with more subclasses than this is too general to say how two classes relate (Thing). */
+    static final int SPECIFIC_MAX = 30;
+    static final double NEIGHBOUR_SCORE = 0.15;
+    static final int NEIGHBOURS_PER_CLASS = 6;
 
     private final GraphSchema schema;
     private final LinkOptions options;
@@ -56,6 +60,8 @@ final class StandardLinker implements SchemaLinker {
     private final Map<String, List<Endpoint>> endpoints = new HashMap<>();
     /** Property keys that name what they belong to (name, title, label, …). */
     private final Set<String> namingKeys = new java.util.TreeSet<>();
+    /** Property keys by a class that declares them as its domain. */
+    private final Map<String, Set<String>> keysDeclaredOn = new HashMap<>();
     /** Relationship types by a class they are declared on (as domain or range), for "declared between". */
     private final Map<String, Set<String>> declaredOn = new HashMap<>();
 
@@ -63,8 +69,9 @@ final class StandardLinker implements SchemaLinker {
         this.schema = schema;
         this.options = options;
         this.classGraph = new ClassGraph(schema);
-        for (String p : schema.properties().keySet()) {
-            if (isNaming(p)) namingKeys.add(p);
+        for (PropertyKey p : schema.properties().values()) {
+            if (isNaming(p.name())) namingKeys.add(p.name());
+            for (String d : p.domains()) keysDeclaredOn.computeIfAbsent(d, k -> new java.util.TreeSet<>()).add(p.name());
         }
         for (String r : schema.relTypes().keySet()) {
             List<Endpoint> eps = schema.effectiveEndpoints(r);
@@ -136,6 +143,8 @@ final class StandardLinker implements SchemaLinker {
                 relateProperties(anchors);
                 relateRelTypes(anchors);
                 addNamingProperties(anchors);
+                addOwnKeys(pulled);
+                addNeighbourhood(anchors);
             } else {
                 anchors = new LinkedHashSet<>(centralPart());
             }
@@ -274,6 +283,19 @@ final class StandardLinker implements SchemaLinker {
                     if (tos.size() <= 2) pull(tos, r, s, "range", out);
                 }
             }
+            List<TermRef> props = score.entrySet().stream()
+                    .filter(e -> e.getKey().kind() == TermKind.PROPERTY && e.getValue() >= CLASS_MIN)
+                    .sorted(Map.Entry.<TermRef, Double>comparingByValue().reversed())
+                    .limit(3).map(Map.Entry::getKey).toList();
+            for (TermRef p : props) {
+                PropertyKey key = schema.properties().get(p.name());
+                if (key.anyDomain() || key.domains().size() > 2) continue;
+                boolean held = false;
+                for (String c : classes) held |= schema.allowsProperty(c, p.name());
+                for (String c : out) held |= schema.allowsProperty(c, p.name());
+                // "duty" names CustomsDeclaration.dutyAmount: the class holding the key is needed too.
+                if (!held) pull(key.domains(), p, ENDPOINT_FACTOR * score.get(p), "holder", out);
+            }
             return out;
         }
 
@@ -320,22 +342,81 @@ final class StandardLinker implements SchemaLinker {
                 }
             }
             Set<String> candidates = new LinkedHashSet<>();
-            for (String c : cs) candidates.addAll(declaredOn.getOrDefault(c, Set.of()));
+            for (String c : cs) {
+                for (String sup : specificSupers(c)) candidates.addAll(declaredOn.getOrDefault(sup, Set.of()));
+            }
             // Popular pairs (Person and Organization) have dozens of types: keep the few closest in meaning.
             Map<String, List<String>> byPair = new HashMap<>();
             for (String r : candidates) {
-                if (score.containsKey(new TermRef(TermKind.RELATIONSHIP, r))) continue;
+                if (scoreOf(new TermRef(TermKind.RELATIONSHIP, r)) >= BETWEEN_SCORE) continue;
                 String between = between(r, cs, true);
                 if (between != null) byPair.computeIfAbsent(between, k -> new ArrayList<>()).add(r);
             }
-            byPair.forEach((pair, rs) -> rs.stream()
-                    .sorted(Comparator.comparingDouble((String r) -> -similarity(new TermRef(TermKind.RELATIONSHIP, r)))
-                            .thenComparing(r -> r))
+            byPair.forEach((pair, rs) -> closest(rs).stream()
                     .limit(BETWEEN_PER_PAIR)
-                    .forEach(r -> add(new TermRef(TermKind.RELATIONSHIP, r), BETWEEN_SCORE, "declared between " + pair)));
+                    .forEach(r -> topUp(new TermRef(TermKind.RELATIONSHIP, r), BETWEEN_SCORE, "declared between " + pair)));
         }
 
-        /** "A and B" when the type connects two anchors (exactly: declared on them, not inherited). */
+        /**
+         * The last tier of the ranking: relationship types declared on each anchor (or a specific superclass)
+         * and the classes at their other end. A card with budget to spare shows them, so a query can take a
+         * path the question does not spell out ("berthed at terminals" goes through port calls and voyages).
+         */
+        private void addNeighbourhood(Set<String> anchors) {
+            for (String c : anchors) {
+                Set<String> supers = specificSupers(c);
+                List<String> own = new ArrayList<>();
+                for (String sup : supers) {
+                    for (String k : keysDeclaredOn.getOrDefault(sup, Set.of())) {
+                        if (!own.contains(k) && scoreOf(new TermRef(TermKind.PROPERTY, k)) < NEIGHBOUR_SCORE) own.add(k);
+                    }
+                }
+                own.stream()
+                        .sorted(Comparator.comparingDouble((String k) -> -similarity(new TermRef(TermKind.PROPERTY, k)))
+                                .thenComparing(k -> k))
+                        .limit(NEIGHBOURS_PER_CLASS / 2)
+                        .forEach(k -> topUp(new TermRef(TermKind.PROPERTY, k), NEIGHBOUR_SCORE, "property of " + c));
+                List<String> rels = new ArrayList<>();
+                for (String sup : supers) {
+                    for (String r : declaredOn.getOrDefault(sup, Set.of())) {
+                        if (!rels.contains(r) && scoreOf(new TermRef(TermKind.RELATIONSHIP, r)) < NEIGHBOUR_SCORE) rels.add(r);
+                    }
+                }
+                for (String r : closest(rels).stream().limit(NEIGHBOURS_PER_CLASS).toList()) {
+                    topUp(new TermRef(TermKind.RELATIONSHIP, r), NEIGHBOUR_SCORE, "next to " + c);
+                    for (Endpoint e : endpoints.get(r)) {
+                        String other = supers.contains(e.from()) ? e.to() : supers.contains(e.to()) ? e.from() : null;
+                        if (other == null || !schema.labels().containsKey(other) || !isSpecific(other)) continue;
+                        topUp(new TermRef(TermKind.LABEL, other), NEIGHBOUR_SCORE * 0.9, "next to " + c + " by " + r);
+                    }
+                }
+            }
+        }
+
+        private List<String> closest(Collection<String> rels) {
+            return rels.stream()
+                    .sorted(Comparator.comparingDouble((String r) -> -similarity(new TermRef(TermKind.RELATIONSHIP, r)))
+                            .thenComparing(r -> r))
+                    .toList();
+        }
+
+        /** The class and those of its superclasses specific enough to say something about it. */
+        private Set<String> specificSupers(String c) {
+            Set<String> out = new LinkedHashSet<>();
+            for (String sup : schema.superLabels(c)) {
+                if (sup.equals(c) || isSpecific(sup)) out.add(sup);
+            }
+            return out;
+        }
+
+        private boolean isSpecific(String label) {
+            return schema.subLabels(label).size() <= SPECIFIC_MAX;
+        }
+
+        /**
+         * "A and B" when the type connects two anchors; {@code exact}: declared on them or on a specific
+         * superclass, not on a general one such as Thing.
+         */
         private String between(String type, List<String> cs, boolean exact) {
             for (Endpoint e : endpoints.get(type)) {
                 if (e.anyFrom() || e.anyTo()) continue;
@@ -343,7 +424,7 @@ final class StandardLinker implements SchemaLinker {
                     for (String b : cs) {
                         // A type from a class to itself (Person KNOWS Person) does not join two anchors.
                         if (exact && a.equals(b)) continue;
-                        if (exact ? e.from().equals(a) && e.to().equals(b)
+                        if (exact ? specificSupers(a).contains(e.from()) && specificSupers(b).contains(e.to())
                                 : schema.isSubLabel(a, e.from()) && schema.isSubLabel(b, e.to())) {
                             return a + " and " + b;
                         }
@@ -368,6 +449,20 @@ final class StandardLinker implements SchemaLinker {
             }
         }
 
+
+        /**
+         * A class reached only as the end of a named relationship (QuantitativeValue for "number of employees")
+         * is read through its own keys: the two closest in meaning, shortest first when there is no meaning.
+         */
+        private void addOwnKeys(List<String> pulled) {
+            for (String c : pulled) {
+                keysDeclaredOn.getOrDefault(c, Set.of()).stream()
+                        .sorted(Comparator.comparingDouble((String k) -> -similarity(new TermRef(TermKind.PROPERTY, k)))
+                                .thenComparingInt(String::length).thenComparing(k -> k))
+                        .limit(2)
+                        .forEach(k -> topUp(new TermRef(TermKind.PROPERTY, k), NAMING_PROPERTY_SCORE, "key of " + c));
+            }
+        }
 
         /** No recognisable term: the most central classes by PageRank over the class graph. */
         private List<String> centralPart() {
@@ -456,6 +551,16 @@ final class StandardLinker implements SchemaLinker {
         private double relCost(String type) {
             double s = score.getOrDefault(new TermRef(TermKind.RELATIONSHIP, type), 0.0);
             return 1 - 0.6 * Math.min(1, s);
+        }
+
+        private double scoreOf(TermRef t) {
+            return score.getOrDefault(t, 0.0);
+        }
+
+        /** Raises a term to at least {@code floor} (weak evidence plus a structural reason). */
+        private void topUp(TermRef t, double floor, String why) {
+            double have = scoreOf(t);
+            if (have < floor) add(t, floor - have, why);
         }
 
         private void add(TermRef t, double s, String why) {
