@@ -155,16 +155,20 @@ final class LexicalIndex {
         String best = null;
         int bestD = maxEdits + 1;
         boolean tie = false;
-        for (int l = len - maxEdits; l <= len + maxEdits; l++) {
-            for (Map.Entry<String, String> v : wordsByLength.getOrDefault(l, Map.of()).entrySet()) {
-                if (v.getKey().charAt(0) != word.charAt(0)) continue;
-                int d = Fuzzy.distance(word, v.getKey(), maxEdits);
-                if (d < bestD) {
-                    bestD = d;
-                    best = v.getValue();
-                    tie = false;
-                } else if (d == bestD && !v.getValue().equals(best)) {
-                    tie = true;
+        // The word as typed, and without a plural "s", since names are mostly singular ("vessles" → vessel).
+        List<String> variants = word.endsWith("s") ? List.of(word, word.substring(0, len - 1)) : List.of(word);
+        for (String w : variants) {
+            for (int l = w.length() - maxEdits; l <= w.length() + maxEdits; l++) {
+                for (Map.Entry<String, String> v : wordsByLength.getOrDefault(l, Map.of()).entrySet()) {
+                    if (v.getKey().charAt(0) != w.charAt(0)) continue;
+                    int d = Fuzzy.distance(w, v.getKey(), maxEdits);
+                    if (d < bestD) {
+                        bestD = d;
+                        best = v.getValue();
+                        tie = false;
+                    } else if (d == bestD && !v.getValue().equals(best)) {
+                        tie = true;
+                    }
                 }
             }
         }

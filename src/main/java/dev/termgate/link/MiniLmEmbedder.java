@@ -7,6 +7,9 @@ import dev.langchain4j.model.embedding.onnx.allminilml6v2q.AllMiniLmL6V2Quantize
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.concurrent.Executor;
+import java.util.concurrent.Executors;
+import java.util.concurrent.atomic.AtomicInteger;
 
 /**
  * all-MiniLM-L6-v2 (quantized) run in process by LangChain4j's ONNX runtime: no network, no GPU. The model
@@ -26,12 +29,26 @@ final class MiniLmEmbedder implements Embedder {
             synchronized (this) {
                 m = model;
                 if (m == null) {
-                    m = new AllMiniLmL6V2QuantizedEmbeddingModel();
+                    m = new AllMiniLmL6V2QuantizedEmbeddingModel(workers());
                     model = m;
                 }
             }
         }
         return m;
+    }
+
+    /**
+     * The model's batch worker pool. Daemon threads: the library's default pool keeps a JVM alive for a minute
+     * after the last embedding, which a command (or a test runner) must not wait for.
+     */
+    private static Executor workers() {
+        int n = Math.max(1, Runtime.getRuntime().availableProcessors());
+        AtomicInteger count = new AtomicInteger();
+        return Executors.newFixedThreadPool(n, r -> {
+            Thread t = new Thread(r, "termgate-embed-" + count.incrementAndGet());
+            t.setDaemon(true);
+            return t;
+        });
     }
 
     @Override
