@@ -9,6 +9,8 @@ import dev.termgate.card.DotCard;
 import dev.termgate.card.Graphviz;
 import dev.termgate.card.TokenCounter;
 import dev.termgate.card.TokenEncoding;
+import dev.termgate.link.LinkOptions;
+import dev.termgate.link.Linkers;
 import dev.termgate.link.Linking;
 import dev.termgate.schema.GraphSchema;
 import picocli.CommandLine.Command;
@@ -115,9 +117,8 @@ public final class CardCommand implements Callable<Integer> {
         }
     }
 
-    /** Interim until the linker is merged: says so instead of pretending. */
     private Linking link(GraphSchema schema) {
-        throw new UserError(Exit.USAGE, "--question needs schema linking, which this build does not include yet");
+        return Linkers.standard(schema, LinkOptions.defaults()).link(question, schema);
     }
 
     private static String svg(String dot) {
