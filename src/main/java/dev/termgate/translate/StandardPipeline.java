@@ -4,11 +4,14 @@ import dev.termgate.card.Card;
 import dev.termgate.card.CardTerm;
 import dev.termgate.card.Cards;
 import dev.termgate.card.TokenEncoding;
-import dev.termgate.diag.Code;
-import dev.termgate.diag.Diagnostic;
-import dev.termgate.query.Span;
+import dev.termgate.engine.Engine;
+import dev.termgate.engine.EngineException;
+import dev.termgate.engine.Engines;
+import dev.termgate.engine.GraphFiles;
+import dev.termgate.graph.ImportException;
 import dev.termgate.schema.GraphSchema;
 
+import java.time.Duration;
 import java.util.List;
 import java.util.function.Supplier;
 
@@ -19,9 +22,21 @@ public final class StandardPipeline implements Pipeline.Factory {
     public Pipeline open(PipelineSpec spec) throws Pipeline.PipelineException {
         GraphSchema schema = spec.schema();
         QueryGate gate = StandardGate.forSchema(schema, spec.schemaFree());
-        QueryRunner runner = (checked, limits) -> new RunResult(List.of(), List.of(), false, "",
-                List.of(Diagnostic.at(Code.RUNTIME_ERROR, Span.NONE, "the engine is not part of this build yet")));
-        return new Pipeline(schema, wholeCard(schema), gate, runner, () -> {});
+        Engine engine = engine(spec);
+        return new Pipeline(schema, wholeCard(schema), gate, new EngineRunner(engine, schema), engine::close);
+    }
+
+    private static Engine engine(PipelineSpec spec) throws Pipeline.PipelineException {
+        try {
+            if (spec.remote().isPresent()) return Engines.remote(spec.remote().get(), "g", Duration.ofSeconds(10));
+            GraphFiles.Loaded loaded = spec.graph().isEmpty() ? GraphFiles.demo(spec.schema())
+                    : GraphFiles.open(List.of(spec.graph().get()), spec.schema());
+            return loaded.engine();
+        } catch (EngineException e) {
+            throw new Pipeline.PipelineException(e.getMessage(), !e.isServiceFailure(), e.isServiceFailure());
+        } catch (ImportException e) {
+            throw new Pipeline.PipelineException(e.getMessage(), true, false);
+        }
     }
 
     /** Until schema linking is merged every question gets the whole card, made once. */
