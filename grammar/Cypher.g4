@@ -351,16 +351,16 @@ symbolicName
     | nonReservedWord                                                        # KeywordName
     ;
 
-/** Keywords that may still serve as variable and function names. */
+/** Keywords that may still serve as variable and function names (models write (call:Call), (order:Order)). */
 nonReservedWord
     : COUNT | ANY | NONE | SINGLE | REDUCE | SHORTESTPATH | ALLSHORTESTPATHS | CSV | HEADERS | FIELDTERMINATOR
     | FROM | ASC | ASCENDING | DESC | DESCENDING | BY | YIELD | LOAD | STARTS | ENDS | CONTAINS | DETACH
-    | FOREACH | ON | REMOVE
+    | FOREACH | ON | REMOVE | CALL | ORDER
     ;
 
 reservedWord
-    : ALL | AND | AS | CALL | CASE | CREATE | DELETE | DISTINCT | ELSE | END | EXISTS | FALSE | IN | IS
-    | LIMIT | MATCH | MERGE | NOT | NULL | OPTIONAL | OR | ORDER | RETURN | SET | SKIP_ | THEN | TRUE | UNION
+    : ALL | AND | AS | CASE | CREATE | DELETE | DISTINCT | ELSE | END | EXISTS | FALSE | IN | IS
+    | LIMIT | MATCH | MERGE | NOT | NULL | OPTIONAL | OR | RETURN | SET | SKIP_ | THEN | TRUE | UNION
     | UNWIND | WHEN | WHERE | WITH | XOR
     ;
 
@@ -476,9 +476,11 @@ PIPE : '|' ;
 AMP : '&' ;
 BANG : '!' ;
 
-WS : [ \t\n\r\u000B\u000C\u001C-\u001F\u00A0\u1680\u2000-\u200A\u2028\u2029\u202F\u205F\u3000\uFEFF]+ -> channel(HIDDEN) ;
-LINE_COMMENT : '//' ~[\r\n]* -> channel(HIDDEN) ;
-BLOCK_COMMENT : '/*' .*? '*/' -> channel(HIDDEN) ;
+// Blanks and comments are skipped rather than kept on a hidden channel: nothing reads them, and skipping halves
+// the token stream.
+WS : [ \t\n\r\u000B\u000C\u001C-\u001F\u00A0\u1680\u2000-\u200A\u2028\u2029\u202F\u205F\u3000\uFEFF]+ -> skip ;
+LINE_COMMENT : '//' ~[\r\n]* -> skip ;
+BLOCK_COMMENT : '/*' .*? '*/' -> skip ;
 
 /** Any other character: kept as a token so the parser reports it with its position. */
 UNKNOWN : . ;

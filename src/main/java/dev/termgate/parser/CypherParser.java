@@ -95,7 +95,7 @@ public final class CypherParser {
         TreeBuilder builder = new TreeBuilder(map);
         Query query = builder.statement(tree);
         List<Diagnostic> problems = new ArrayList<>(builder.diagnostics);
-        problems.addAll(PatternPlacement.check(query));
+        if (builder.patternPredicates > 0) problems.addAll(PatternPlacement.check(query));
         if (!problems.isEmpty()) return ParseResult.failure(text, problems);
         return ParseResult.success(text, query);
     }

@@ -36,11 +36,20 @@ final class SyntaxErrors {
     private static final IntervalSet EXPRESSION_START;
     private static final IntervalSet NAME_START;
     private static final IntervalSet CLAUSE_START;
+    /** Tokens that continue an expression: binary operators, predicates and postfix selectors. */
+    private static final IntervalSet OPERATORS = IntervalSet.of(CypherLexer.AND, CypherLexer.AND);
 
     static {
         ATN atn = dev.termgate.parser.antlr.CypherParser._ATN;
         EXPRESSION_START = atn.nextTokens(atn.ruleToStartState[dev.termgate.parser.antlr.CypherParser.RULE_expression]);
         NAME_START = atn.nextTokens(atn.ruleToStartState[dev.termgate.parser.antlr.CypherParser.RULE_schemaName]);
+        for (int t : new int[] {CypherLexer.OR, CypherLexer.XOR, CypherLexer.NOT, CypherLexer.CONTAINS,
+                CypherLexer.ENDS, CypherLexer.STARTS, CypherLexer.IN, CypherLexer.IS, CypherLexer.EQ, CypherLexer.NE,
+                CypherLexer.LT, CypherLexer.GT, CypherLexer.LE, CypherLexer.GE, CypherLexer.PLUS, CypherLexer.MINUS,
+                CypherLexer.STAR, CypherLexer.SLASH, CypherLexer.PERCENT, CypherLexer.CARET, CypherLexer.REGEX,
+                CypherLexer.DOT, CypherLexer.LBRACKET, CypherLexer.COLON}) {
+            OPERATORS.add(t);
+        }
         CLAUSE_START = atn.nextTokens(atn.ruleToStartState[dev.termgate.parser.antlr.CypherParser.RULE_clause]);
     }
 
@@ -120,6 +129,7 @@ final class SyntaxErrors {
         if (t.getType() == Token.EOF) return "end of input";
         String text = t.getText();
         if (text.length() > 40) text = text.substring(0, 37) + "...";
+        if (t.getType() == CypherLexer.StringLiteral) return "string " + text;
         return "'" + text + "'";
     }
 
@@ -142,10 +152,19 @@ final class SyntaxErrors {
             words.add("<clause>");
             rest = rest.subtract(CLAUSE_START);
         }
+        boolean operator = rest.contains(CypherLexer.AND) && rest.contains(CypherLexer.PLUS)
+                && rest.contains(CypherLexer.EQ);
+        if (operator) rest = rest.subtract(OPERATORS);
         List<Integer> types = new ArrayList<>(rest.toList());
         types.sort(Comparator.comparing(SyntaxErrors::sortKey));
         for (int type : types) {
-            words.add(tokenWord(type, vocabulary));
+            String w = tokenWord(type, vocabulary);
+            if (!words.contains(w)) words.add(w);
+        }
+        if (operator) {
+            // after a complete expression every operator could follow; naming them all hides the likely fix
+            int eof = words.indexOf("end of input");
+            words.add(eof < 0 ? words.size() : eof, "<operator>");
         }
         if (words.size() > 12) {
             List<String> first = new ArrayList<>(words.subList(0, 11));
@@ -190,14 +209,10 @@ final class SyntaxErrors {
         return symbolic == null ? "<" + type + ">" : "'" + symbolic.toUpperCase(Locale.ROOT) + "'";
     }
 
-    private static boolean inPattern(RuleContext ctx) {
-        for (RuleContext c = ctx; c != null; c = c.parent) {
-            if (c instanceof PatternContext || c instanceof PatternPartContext
-                    || c instanceof AnonymousPatternPartContext || c instanceof PatternElementContext) {
-                return true;
-            }
-        }
-        return false;
+    /** Only where a path may start: a '(' inside a node pattern or a label expression is just a parenthesis. */
+    private static boolean inPattern(RuleContext c) {
+        return c instanceof PatternContext || c instanceof PatternPartContext
+                || c instanceof AnonymousPatternPartContext || c instanceof PatternElementContext;
     }
 
     /** {@code a}, {@code a or b}, {@code a, b or c}. Words are already quoted or bracketed. */

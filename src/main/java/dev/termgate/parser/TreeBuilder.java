@@ -33,6 +33,8 @@ final class TreeBuilder extends CypherBaseVisitor<Object> {
 
     private final SourceMap map;
     final List<Diagnostic> diagnostics = new ArrayList<>();
+    /** How many path patterns were read as expressions; their placement is checked only when there are some. */
+    int patternPredicates;
 
     TreeBuilder(SourceMap map) {
         this.map = map;
@@ -693,6 +695,7 @@ final class TreeBuilder extends CypherBaseVisitor<Object> {
         RelationshipsPatternContext rp = ctx.relationshipsPattern();
         Pattern.Part part = path(Optional.empty(), Pattern.PathKind.PLAIN, rp.nodePattern(), rp.patternElementChain(),
                 span(rp));
+        patternPredicates++;
         return new Expr.PatternPredicate(part, span(ctx));
     }
 

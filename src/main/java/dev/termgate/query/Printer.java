@@ -365,8 +365,10 @@ public final class Printer {
                 }
                 case MINUS, PLUS -> {
                     sb.append(u.op() == Expr.UnaryOp.MINUS ? '-' : '+');
-                    // a signed operand gets parentheses, so that "- -1" never prints as "--1"
-                    boolean signed = precedence(u.operand()) == UNARY;
+                    // a signed operand gets parentheses, so that "- -1" never prints as "--1"; so does a number
+                    // under a minus, which would otherwise read back as one negative literal (-(0) is not -0)
+                    boolean signed = precedence(u.operand()) == UNARY || (u.op() == Expr.UnaryOp.MINUS
+                            && (u.operand() instanceof Expr.IntegerLit || u.operand() instanceof Expr.FloatLit));
                     operand(sb, u.operand(), precedence(u.operand()) < UNARY || signed);
                 }
             }
