@@ -1,0 +1,81 @@
+package dev.termgate.bench;
+
+import dev.termgate.engine.Engine;
+import dev.termgate.engine.Engines;
+import dev.termgate.engine.GraphFiles;
+import dev.termgate.engine.Limits;
+import dev.termgate.engine.Request;
+import dev.termgate.engine.ScaleGraph;
+import dev.termgate.graph.GraphIo;
+import dev.termgate.parser.CypherParser;
+import dev.termgate.query.Query;
+import dev.termgate.schema.GraphSchema;
+import org.apache.tinkerpop.gremlin.tinkergraph.structure.TinkerGraph;
+import org.junit.jupiter.api.Tag;
+import org.junit.jupiter.api.Test;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * Engine speed and memory (run with {@code mvn -B -Pbench verify -Dtest=EngineBench}); figures are printed and
+ * copied into the README, never asserted.
+ */
+@Tag("bench")
+class EngineBench {
+    /** A typical two-hop question with a property filter. */
+    static final String TWO_HOP = "MATCH (c:Carrier)<-[:OPERATED_BY]-(v:Vessel)<-[:PERFORMED_BY]-(voy:Voyage) "
+            + "WHERE c.name = 'Carrier 7' RETURN v.name, count(voy) AS voyages ORDER BY voyages DESC";
+
+    @Test
+    void twoHopQueryOn100kNodes() {
+        TinkerGraph g = ScaleGraph.generate(100_000, 42);
+        Query q = new CypherParser().parse(TWO_HOP).tree();
+        // The demo ontology's schema: :Vessel matches its subclasses (ContainerShip, Tanker, BulkCarrier).
+        GraphSchema schema = dev.termgate.ontology.OntologyLoader.load(List.of(dev.termgate.ontology.OntologyLoader.DEMO)).schema();
+        Request req = Request.of(q, TWO_HOP, schema, Limits.defaults());
+        try (Engine e = Engines.embedded(g, "bench")) {
+            for (int i = 0; i < 30; i++) e.run(req);
+            long[] run = new long[50], plan = new long[50];
+            int rows = 0;
+            for (int i = 0; i < run.length; i++) {
+                long t0 = System.nanoTime();
+                rows = e.run(req).rows().size();
+                run[i] = System.nanoTime() - t0;
+                t0 = System.nanoTime();
+                e.explain(req);
+                plan[i] = System.nanoTime() - t0;
+            }
+            System.out.printf("100k nodes: two-hop query median %.2f ms (%d rows); plan compilation median %.3f ms%n",
+                    median(run) / 1e6, rows, median(plan) / 1e6);
+        }
+    }
+
+    @Test
+    void reload1MNodesFromTheGraphFile() throws Exception {
+        TinkerGraph g = ScaleGraph.generate(1_000_000, 42);
+        long rels = g.traversal().E().count().next();
+        Path file = Files.createTempFile("bench", ".tgraph");
+        GraphIo.writeBinary(g, file);
+        g = null;
+        System.gc();
+        long t0 = System.nanoTime();
+        try (Engine e = GraphFiles.open(List.of(file), GraphSchema.empty()).engine()) {
+            double s = (System.nanoTime() - t0) / 1e9;
+            System.gc();
+            long used = Runtime.getRuntime().totalMemory() - Runtime.getRuntime().freeMemory();
+            System.out.printf("1M nodes / %d relationships: reload %.1f s, heap after load %d MB (max heap %d MB), file %d MB%n",
+                    rels, s, used >> 20, Runtime.getRuntime().maxMemory() >> 20, Files.size(file) >> 20);
+        } finally {
+            Files.deleteIfExists(file);
+        }
+    }
+
+    private static double median(long[] xs) {
+        long[] c = xs.clone();
+        Arrays.sort(c);
+        return c[c.length / 2];
+    }
+}
