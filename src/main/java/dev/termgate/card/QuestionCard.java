@@ -68,8 +68,9 @@ final class QuestionCard {
     }
 
     Card build() {
-        if (linking.fallback()) notices.add(FALLBACK_NOTICE);
         notices.addAll(linking.notices());
+        // The linker normally says itself that it fell back; the card says it only when the linker did not.
+        if (linking.fallback() && linking.notices().isEmpty()) notices.add(FALLBACK_NOTICE);
         for (LinkedTerm t : linking.ranked()) {
             Ref r = new Ref(t.kind(), t.name());
             if (info(r).isEmpty()) {

@@ -124,7 +124,10 @@ class CardBudgetTest {
         Linking l = new Linking(List.of(new LinkedTerm(TermKind.LABEL, "Port", 0.1, List.of("central"))), true, List.of());
         Card card = Cards.forQuestion(schema, l, 500, TokenEncoding.CL100K_BASE);
         assertTrue(card.fallback());
-        assertTrue(card.notices().contains(QuestionCard.FALLBACK_NOTICE));
+        assertEquals(List.of(QuestionCard.FALLBACK_NOTICE), card.notices());
+        Linking said = new Linking(l.ranked(), true, List.of("no term was recognised (the linker's words)"));
+        assertEquals(List.of("no term was recognised (the linker's words)"),
+                Cards.forQuestion(schema, said, 500, TokenEncoding.CL100K_BASE).notices(), "said once");
     }
 
     @Test
