@@ -1,5 +1,6 @@
 package dev.termgate.translate;
 
+import dev.termgate.card.BudgetTooSmallException;
 import dev.termgate.card.Card;
 import dev.termgate.card.CardTerm;
 import dev.termgate.card.Cards;
@@ -9,6 +10,9 @@ import dev.termgate.engine.EngineException;
 import dev.termgate.engine.Engines;
 import dev.termgate.engine.GraphFiles;
 import dev.termgate.graph.ImportException;
+import dev.termgate.link.LinkOptions;
+import dev.termgate.link.Linkers;
+import dev.termgate.link.SchemaLinker;
 import dev.termgate.schema.GraphSchema;
 
 import java.time.Duration;
@@ -23,7 +27,7 @@ public final class StandardPipeline implements Pipeline.Factory {
         GraphSchema schema = spec.schema();
         QueryGate gate = StandardGate.forSchema(schema, spec.schemaFree());
         Engine engine = engine(spec);
-        return new Pipeline(schema, wholeCard(schema), gate, new EngineRunner(engine, schema), engine::close);
+        return new Pipeline(schema, questionCards(schema), gate, new EngineRunner(engine, schema), engine::close);
     }
 
     private static Engine engine(PipelineSpec spec) throws Pipeline.PipelineException {
@@ -39,10 +43,24 @@ public final class StandardPipeline implements Pipeline.Factory {
         }
     }
 
-    /** Until schema linking is merged every question gets the whole card, made once. */
-    static CardSource wholeCard(GraphSchema schema) {
-        Supplier<CardSource.Card> once = memo(() -> of(Cards.whole(schema, TokenEncoding.DEFAULT)));
-        return question -> once.get();
+    /**
+     * The card each question gets: the whole card when it already fits the default budget (nothing to gain by
+     * pruning), otherwise the card pruned for the question by schema linking. The linker, with its embedding
+     * model, is built only when a question first needs it.
+     */
+    static CardSource questionCards(GraphSchema schema) {
+        Supplier<CardSource.Card> whole = memo(() -> of(Cards.whole(schema, TokenEncoding.DEFAULT)));
+        Supplier<SchemaLinker> linker = memo(() -> Linkers.standard(schema, LinkOptions.defaults()));
+        return question -> {
+            CardSource.Card all = whole.get();
+            if (all.tokens() <= Cards.DEFAULT_BUDGET) return all;
+            try {
+                return of(Cards.forQuestion(schema, linker.get().link(question, schema), Cards.DEFAULT_BUDGET,
+                        TokenEncoding.DEFAULT));
+            } catch (BudgetTooSmallException e) {
+                return all;
+            }
+        };
     }
 
     static CardSource.Card of(Card c) {
