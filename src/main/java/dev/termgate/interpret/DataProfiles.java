@@ -16,7 +16,7 @@ public final class DataProfiles {
     /** Every node with its labels and properties. */
     public static final String NODES_QUERY = "MATCH (n) RETURN labels(n) AS labels, properties(n) AS props";
     /** Every relationship with its type and the ids of its ends. */
-    public static final String RELATIONSHIPS_QUERY = "MATCH (a)-[r]->(b) RETURN type(r) AS type, id(a) AS start, id(b) AS end";
+    public static final String RELATIONSHIPS_QUERY = "MATCH (a)-[r]->(b) RETURN type(r) AS type, id(a) AS source, id(b) AS target";
 
     private DataProfiles() {}
 
