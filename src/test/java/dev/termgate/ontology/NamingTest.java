@@ -121,6 +121,6 @@ class NamingTest {
         assertEquals("schema", Naming.derivedPrefix("http://schema.org/"));
         assertEquals("org", Naming.derivedPrefix("http://www.w3.org/ns/org#"));
         assertEquals("FinancialProductsAndServices", Naming.derivedPrefix(
-                "https://spec.edmcouncil.org/fibo/ontology/FBC/ProductsAndServices/FinancialProductsAndServices/"));
+                "https://spec.example.org/finance/ontology/FBC/ProductsAndServices/FinancialProductsAndServices/"));
     }
 }
