@@ -17,8 +17,9 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
- * A real batch process killed with SIGKILL ({@link Process#destroyForcibly()} on Unix) in the middle of its
- * run, twice, then run to the end: every question ends with exactly one result, and no line is broken.
+ * The real {@code termgate batch} ({@link Main}, the shipped pipeline: demo ontology, parser, analyzer, embedded
+ * demo graph) as its own process, killed with SIGKILL ({@link Process#destroyForcibly()} on Unix) in the middle of
+ * its run, twice, then run to the end: every question ends with exactly one result, and no line is broken.
  */
 class BatchKillResumeTest {
 
@@ -33,9 +34,9 @@ class BatchKillResumeTest {
             Path q = Files.writeString(dir.resolve("questions.txt"), sb.toString());
             Path out = dir.resolve("out.jsonl");
             List<String> cmd = List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
-                    "-cp", System.getProperty("java.class.path"), ToyBatchMain.class.getName(),
+                    "-cp", System.getProperty("java.class.path"), Main.class.getName(), "batch",
                     "--questions", q.toString(), "--out", out.toString(), "--model", server.modelOption("m"),
-                    "--base-url", server.baseUrl(), "--jobs", "4", "--schema-free", "--no-progress");
+                    "--base-url", server.baseUrl(), "--jobs", "4", "--no-progress");
             for (int kill = 1; kill <= 2; kill++) {
                 int before = lines(out);
                 Process p = new ProcessBuilder(cmd).redirectErrorStream(true).redirectOutput(dir.resolve("log" + kill).toFile()).start();
@@ -61,6 +62,12 @@ class BatchKillResumeTest {
             assertEquals(QUESTIONS, count.size(), "every question has a result");
             assertTrue(count.values().stream().allMatch(n -> n == 1), "exactly one each: " + count);
             assertEquals(QUESTIONS, all.size());
+            for (String l : all) {
+                var o = JsonParser.parseString(l).getAsJsonObject();
+                // The shipped pipeline checked the query against the demo ontology and ran it on the demo graph.
+                assertTrue(o.get("valid").getAsBoolean(), l);
+                assertTrue(o.get("row_count").getAsInt() > 0, l);
+            }
             List<String> asked = new ArrayList<>();
             server.seen().forEach(s -> asked.add(s.question()));
             assertTrue(asked.size() >= QUESTIONS, "some questions may be asked twice when killed between ask and write");
