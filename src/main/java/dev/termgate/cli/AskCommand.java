@@ -37,6 +37,7 @@ public final class AskCommand implements Callable<Integer> {
     @Mixin ModelOptions model;
     @Mixin OntologyOptions ontology;
     @Mixin GraphOptions graph;
+    @Mixin BudgetOption budget;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text, json (the batch record) or csv (rows only; the rest on standard error)")
@@ -69,7 +70,7 @@ public final class AskCommand implements Callable<Integer> {
         var settings = model.settings();
         var prompts = model.prompts();
         RunLimits limits = graph.limits();
-        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, err));
+        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
         try {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts), pipeline.runner());

@@ -7,6 +7,7 @@ import dev.termgate.ontology.OntologyException;
 import dev.termgate.ontology.OntologyLoader;
 import dev.termgate.schema.GraphSchema;
 import dev.termgate.translate.Pipeline;
+import dev.termgate.translate.PipelineSpec;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -76,7 +77,7 @@ public final class AuditCommand implements Callable<Integer> {
                 read = AuditInput.batch(batchFile);
                 schema = schema();
             } else {
-                pipeline = AskWiring.open(factory, graph.spec(ontology, err));
+                pipeline = AskWiring.open(factory, graph.spec(ontology, PipelineSpec.DEFAULT_BUDGET, err));
                 read = AuditInput.queries(queries, pipeline.gate());
                 schema = pipeline.schema();
             }

@@ -57,6 +57,7 @@ public final class BatchCommand implements Callable<Integer> {
     @Mixin ModelOptions model;
     @Mixin OntologyOptions ontology;
     @Mixin GraphOptions graph;
+    @Mixin BudgetOption budget;
 
     @Spec picocli.CommandLine.Model.CommandSpec spec;
 
@@ -87,7 +88,7 @@ public final class BatchCommand implements Callable<Integer> {
                 err.println("termgate: all " + qs.questions().size() + " questions already have a result in " + out);
                 return Exit.OK;
             }
-            Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, err));
+            Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
             try {
                 Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
                 Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts),

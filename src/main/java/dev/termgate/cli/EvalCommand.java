@@ -51,6 +51,7 @@ public final class EvalCommand implements Callable<Integer> {
     @Mixin ModelOptions model;
     @Mixin OntologyOptions ontology;
     @Mixin GraphOptions graph;
+    @Mixin BudgetOption budget;
 
     @Spec picocli.CommandLine.Model.CommandSpec spec;
 
@@ -79,7 +80,7 @@ public final class EvalCommand implements Callable<Integer> {
         RunLimits limits = graph.limits();
         // Results are compared whole: no row cap, the time limit stays.
         RunLimits whole = new RunLimits(limits.timeout(), Integer.MAX_VALUE);
-        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, err));
+        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
         try {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             TranslationLoop loop = new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts);

@@ -3,8 +3,6 @@ package dev.termgate.cli;
 import dev.termgate.diag.Code;
 import dev.termgate.engine.Engine;
 import dev.termgate.engine.EngineException;
-import dev.termgate.engine.Engines;
-import dev.termgate.engine.GraphFiles;
 import dev.termgate.engine.Limits;
 import dev.termgate.engine.Request;
 import dev.termgate.engine.Result;
@@ -17,6 +15,8 @@ import dev.termgate.query.Query;
 import dev.termgate.repair.CheckResult;
 import dev.termgate.repair.QueryCheck;
 import dev.termgate.schema.GraphSchema;
+import dev.termgate.translate.GraphSource;
+import dev.termgate.translate.PipelineSpec;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -28,7 +28,6 @@ import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -45,32 +44,17 @@ public final class RunCommand implements Callable<Integer> {
     @Mixin
     OntologyOptions ontology;
 
+    @Mixin
+    GraphOptions graph;
+
     @Parameters(arity = "0..1", paramLabel = "QUERY", description = "the query (or use --file)")
     String query;
 
     @Option(names = "--file", paramLabel = "FILE", description = "read queries from FILE (- for standard input), separated by blank lines")
     String file;
 
-    @Option(names = "--graph", paramLabel = "FILE", description = "graph to run on (repeatable): .tgraph (from import), .graphml, .cypher, .csv files or a directory of them, RDF data; default: the demo graph")
-    List<Path> graph = new ArrayList<>();
-
-    @Option(names = "--remote", paramLabel = "URL", description = "run on a Gremlin Server, e.g. ws://HOST:8182/gremlin")
-    String remote;
-
-    @Option(names = "--traversal-source", paramLabel = "NAME", defaultValue = "g", description = "the server's traversal source (default: ${DEFAULT-VALUE})")
-    String traversalSource;
-
-    @Option(names = "--schema-free", description = "use no ontology: every label, type and property is accepted and matched as written")
-    boolean schemaFree;
-
     @Option(names = "--format", paramLabel = "table|json|csv", defaultValue = "table", description = "output format (default: ${DEFAULT-VALUE})")
     String format;
-
-    @Option(names = "--timeout", paramLabel = "SECONDS", defaultValue = "30", description = "time limit of each query (default: ${DEFAULT-VALUE})")
-    double timeout;
-
-    @Option(names = "--max-rows", paramLabel = "N", defaultValue = "1000", description = "row cap of each query (default: ${DEFAULT-VALUE}); more rows are cut and marked truncated")
-    int maxRows;
 
     @Option(names = "--explain", description = "print the plan (Gremlin traversals and client-side steps) before the rows")
     boolean explain;
@@ -81,14 +65,11 @@ public final class RunCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         String fmt = format.toLowerCase(Locale.ROOT);
         if (!List.of("table", "json", "csv").contains(fmt)) throw new UserError(Exit.USAGE, "--format must be table, json or csv");
-        if (!(timeout > 0)) throw new UserError(Exit.USAGE, "--timeout must be positive");
-        if (maxRows < 1) throw new UserError(Exit.USAGE, "--max-rows must be at least 1");
-        if (!graph.isEmpty() && remote != null) throw new UserError(Exit.USAGE, "give either --graph or --remote, not both");
-        if (schemaFree && !ontology.sources().isEmpty()) throw new UserError(Exit.USAGE, "give either --ontology or --schema-free, not both");
         List<String> texts = queries();
-        Limits limits = new Limits(Duration.ofMillis(Math.round(timeout * 1000)), maxRows, Limits.DEFAULT_MAX_INTERMEDIATE);
-
-        GraphSchema schema = schemaFree ? GraphSchema.empty() : ontology.schema(err);
+        Limits limits = graph.engineLimits();
+        PipelineSpec source = graph.spec(ontology, PipelineSpec.DEFAULT_BUDGET, err);
+        GraphSchema schema = source.schema();
+        boolean schemaFree = source.schemaFree();
         // Check everything first (parser, analyzer, certain repairs): nothing invalid is run, and an invalid
         // query is reported before any graph is opened.
         List<Query> trees = new ArrayList<>();
@@ -123,7 +104,7 @@ public final class RunCommand implements Callable<Integer> {
         if (invalid && texts.size() == 1) return Exit.INVALID;
 
         int exit = invalid ? Exit.INVALID : Exit.OK;
-        try (Engine engine = open(schema, err)) {
+        try (Engine engine = open(source)) {
             for (int i = 0; i < texts.size(); i++) {
                 if (trees.get(i) == null) continue;
                 Request req = new Request(trees.get(i), runTexts.get(i), schema, java.util.Map.of(), limits);
@@ -157,14 +138,9 @@ public final class RunCommand implements Callable<Integer> {
         out.flush();
     }
 
-    private Engine open(GraphSchema schema, PrintWriter err) {
+    private static Engine open(PipelineSpec source) {
         try {
-            if (remote != null) return Engines.remote(remote, traversalSource, Duration.ofSeconds(10));
-            GraphFiles.Loaded loaded = graph.isEmpty()
-                    ? GraphFiles.demo(schemaFree ? ontology.schema(err) : schema)
-                    : GraphFiles.open(graph, schema);
-            loaded.problems().forEach(d -> err.println("termgate: " + d.severity().word() + " " + d.code().id() + ": " + d.fullMessage()));
-            return loaded.engine();
+            return GraphSource.open(source);
         } catch (EngineException e) {
             throw new UserError(e.isServiceFailure() ? Exit.SERVICE : Exit.INVALID, e.getMessage());
         } catch (ImportException e) {

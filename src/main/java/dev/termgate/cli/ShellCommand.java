@@ -32,6 +32,7 @@ public final class ShellCommand implements Callable<Integer> {
     @Mixin ModelOptions model;
     @Mixin OntologyOptions ontology;
     @Mixin GraphOptions graph;
+    @Mixin BudgetOption budget;
 
     @Option(names = "--history", paramLabel = "FILE", description = "history file (default: see above)")
     Path history;
@@ -54,7 +55,7 @@ public final class ShellCommand implements Callable<Integer> {
         var settings = model.settings();
         var prompts = model.prompts();
         var limits = graph.limits();
-        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, new java.io.PrintWriter(System.err, true)));
+        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), new java.io.PrintWriter(System.err, true)));
         try (Terminal terminal = TerminalBuilder.builder().name("termgate").system(true).build()) {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             ShellState.TranslatorMaker maker = spec -> {

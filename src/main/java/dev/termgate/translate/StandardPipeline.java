@@ -7,16 +7,12 @@ import dev.termgate.card.Cards;
 import dev.termgate.card.TokenEncoding;
 import dev.termgate.engine.Engine;
 import dev.termgate.engine.EngineException;
-import dev.termgate.engine.Engines;
-import dev.termgate.engine.GraphFiles;
 import dev.termgate.graph.ImportException;
 import dev.termgate.link.LinkOptions;
 import dev.termgate.link.Linkers;
 import dev.termgate.link.SchemaLinker;
 import dev.termgate.schema.GraphSchema;
 
-import java.time.Duration;
-import java.util.List;
 import java.util.function.Supplier;
 
 /** The pipeline of the shipped commands: the ontology's schema, its card, the parser + analyzer + repair gate, the engine. */
@@ -27,15 +23,12 @@ public final class StandardPipeline implements Pipeline.Factory {
         GraphSchema schema = spec.schema();
         QueryGate gate = StandardGate.forSchema(schema, spec.schemaFree());
         Engine engine = engine(spec);
-        return new Pipeline(schema, questionCards(schema), gate, new EngineRunner(engine, schema), engine::close);
+        return new Pipeline(schema, questionCards(schema, spec.cardBudget()), gate, new EngineRunner(engine, schema), engine::close);
     }
 
     private static Engine engine(PipelineSpec spec) throws Pipeline.PipelineException {
         try {
-            if (spec.remote().isPresent()) return Engines.remote(spec.remote().get(), "g", Duration.ofSeconds(10));
-            GraphFiles.Loaded loaded = spec.graph().isEmpty() ? GraphFiles.demo(spec.schema())
-                    : GraphFiles.open(List.of(spec.graph().get()), spec.schema());
-            return loaded.engine();
+            return GraphSource.open(spec);
         } catch (EngineException e) {
             throw new Pipeline.PipelineException(e.getMessage(), !e.isServiceFailure(), e.isServiceFailure());
         } catch (ImportException e) {
@@ -44,18 +37,18 @@ public final class StandardPipeline implements Pipeline.Factory {
     }
 
     /**
-     * The card each question gets: the whole card when it already fits the default budget (nothing to gain by
+     * The card each question gets: the whole card when it already fits the budget (nothing to gain by
      * pruning), otherwise the card pruned for the question by schema linking. The linker, with its embedding
      * model, is built only when a question first needs it.
      */
-    static CardSource questionCards(GraphSchema schema) {
+    static CardSource questionCards(GraphSchema schema, int budget) {
         Supplier<CardSource.Card> whole = memo(() -> of(Cards.whole(schema, TokenEncoding.DEFAULT)));
         Supplier<SchemaLinker> linker = memo(() -> Linkers.standard(schema, LinkOptions.defaults()));
         return question -> {
             CardSource.Card all = whole.get();
-            if (all.tokens() <= Cards.DEFAULT_BUDGET) return all;
+            if (all.tokens() <= budget) return all;
             try {
-                return of(Cards.forQuestion(schema, linker.get().link(question, schema), Cards.DEFAULT_BUDGET,
+                return of(Cards.forQuestion(schema, linker.get().link(question, schema), budget,
                         TokenEncoding.DEFAULT));
             } catch (BudgetTooSmallException e) {
                 return all;

@@ -37,4 +37,27 @@ class StandardPipelineTest {
             assertTrue(r.out().contains("rejected, not run"), r.out());
         }
     }
+
+    @Test
+    void theCardBudgetGivenIsTheOneUsed() throws Exception {
+        try (ScriptedModelServer server = new ScriptedModelServer(ScriptedModelServer.Protocol.OPENAI, seen ->
+                ScriptedModelServer.answer("MATCH (p:Port) RETURN p.name"))) {
+            CliRun.Result whole = CliRun.run(new AskCommand(), CliRun.withEnv(CliRun.env()), "--model", server.modelOption("m"),
+                    "--base-url", server.baseUrl(), "--format", "json", "--budget", "100000", "List all ports.");
+            CliRun.Result pruned = CliRun.run(new AskCommand(), CliRun.withEnv(CliRun.env()), "--model", server.modelOption("m"),
+                    "--base-url", server.baseUrl(), "--format", "json", "--budget", "400", "List all ports.");
+            assertEquals(0, whole.code(), whole.all());
+            assertEquals(0, pruned.code(), pruned.all());
+            int wholeTokens = cardTokens(whole.out());
+            int prunedTokens = cardTokens(pruned.out());
+            assertTrue(prunedTokens <= 400, "pruned to the budget: " + prunedTokens);
+            assertTrue(wholeTokens > 400, "the demo's whole card is larger than the small budget: " + wholeTokens);
+            assertTrue(server.seen().get(1).allText().length() < server.seen().get(0).allText().length(),
+                    "the model got the smaller card");
+        }
+    }
+
+    private static int cardTokens(String json) {
+        return com.google.gson.JsonParser.parseString(json).getAsJsonObject().get("card_tokens").getAsInt();
+    }
 }

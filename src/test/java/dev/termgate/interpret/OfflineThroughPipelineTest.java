@@ -24,7 +24,7 @@ class OfflineThroughPipelineTest {
     @Test
     void instanceValuesReachTheInterpreterThroughTheShippedPipeline() throws Exception {
         GraphSchema schema = OntologyLoader.load(List.of()).schema();
-        PipelineSpec spec = new PipelineSpec(schema, false, Optional.empty(), Optional.empty(), PipelineSpec.DEFAULT_BUDGET);
+        PipelineSpec spec = PipelineSpec.local(schema, java.util.List.of());
         try (Pipeline pipeline = new StandardPipeline().open(spec)) {
             // Demo question q002 (examples/maritime/questions.jsonl): the gold query filters on the carrier's name.
             Reply reply = OfflineTranslator.forPipeline(pipeline)

@@ -91,7 +91,7 @@ class PromptInjectionTest {
             Translator t = ModelTranslator.create(s, Prompts.builtIn(), 3);
             int cases = 0;
             for (QueryGate g : List.of(gate, free)) {
-                Asker asker = new Asker(new TranslationLoop(t, g, StandardPipeline.questionCards(schema), 3), recording);
+                Asker asker = new Asker(new TranslationLoop(t, g, StandardPipeline.questionCards(schema, PipelineSpec.DEFAULT_BUDGET), 3), recording);
                 for (String q : QUESTIONS) {
                     Answer a = asker.ask(q, RunLimits.DEFAULT);
                     assertFalse(a.outcome().valid(), q + " → " + a.outcome().accepted());
