@@ -86,6 +86,13 @@ public final class Interpreter {
             Map.entry("lightest", new Cue(0, 1, false, List.of("weight"))),
             Map.entry("shortest", new Cue(0, 1, false, List.of("length"))));
 
+    /** Added to a tree's cost per pair the grammar joins but the tree does not (common practice: above any path). */
+    private static final double LINK_PENALTY = 10;
+
+    /** Phrases that ask to see the members of each group as well as their count (common practice wording). */
+    private static final List<String[]> MEMBERS = List.of(new String[] {"which", "are", "they"}, new String[] {"what", "are", "they"},
+            new String[] {"which", "ones"}, new String[] {"name", "them"}, new String[] {"list", "them"});
+
     private static final Set<String> NEGATIONS = Set.of("never", "no", "without", "none", "not");
 
     /** One node of the interpretation tree. */
@@ -120,6 +127,10 @@ public final class Interpreter {
         final List<QNode> nodes = new ArrayList<>();
         final List<PEdge> edges = new ArrayList<>();
         final List<PEdge> negEdges = new ArrayList<>();
+        /** Node ids the question's grammar joins directly (see {@link #linkEvents}). */
+        final Map<Integer, Set<Integer>> links = new HashMap<>();
+        /** The classes of the question's own nodes: a path joining grammatical partners does not pass through them. */
+        final Set<String> terminalClasses = new HashSet<>();
         Evidence ev;
         final List<ValueFinder.Hit> categorical = new ArrayList<>();
         List<Evidence.TermHit> readings;
@@ -262,18 +273,19 @@ public final class Interpreter {
             for (int i = 0; i + 1 < nodes.size(); i++) {
                 QNode a = nodes.get(i);
                 QNode b = nodes.get(i + 1);
-                if (a.mention && b.mention && a.values.isEmpty() && endOf(a) == b.pos) a.modifier = true;
+                // "carriers' ships", "country's flag": a possessor is what is asked about, not a qualifier.
+                if (a.mention && b.mention && a.values.isEmpty() && endOf(a) == b.pos && !possessive(endOf(a) - 1)) a.modifier = true;
             }
             // A named relationship needs both its ends in the tree.
             for (Evidence.TermHit h : ev.bestOf(TermKind.RELATIONSHIP)) {
                 if (h.score() < bestAt.get(h.from()) - 0.15) continue;
-                List<dev.termgate.schema.Endpoint> eps = schema.relType(h.name()).map(r -> r.endpoints()).orElse(List.of());
-                if (eps.isEmpty()) continue;
-                List<List<String>> ends = List.of(
-                        eps.stream().map(dev.termgate.schema.Endpoint::from).filter(java.util.Objects::nonNull).distinct().toList(),
-                        eps.stream().map(dev.termgate.schema.Endpoint::to).filter(java.util.Objects::nonNull).distinct().toList());
-                List<Boolean> present = ends.stream().map(alts -> alts.stream().anyMatch(end -> nodes.stream()
-                        .anyMatch(n -> schema.isSubLabel(n.label, end) || schema.isSubLabel(end, n.label)))).toList();
+                // Of several readings of one verb ("originated": loaded at, origin country), one whose both ends
+                // the question names already explains it; no other brings anything in.
+                if (ev.termsOf(TermKind.RELATIONSHIP).stream().anyMatch(o -> o.from() == h.from() && o.score() >= h.score() - 0.05
+                        && !present(ends(o)).contains(false))) continue;
+                List<List<String>> ends = ends(h);
+                if (ends.get(0).isEmpty() && ends.get(1).isEmpty()) continue;
+                List<Boolean> present = present(ends);
                 // A weak (partial) reading only counts when it attaches to something the question names and no
                 // property reads the same word as well ("booked": booking date, booked by, booked on).
                 if (h.partial() && !present.contains(true)) continue;
@@ -288,6 +300,76 @@ public final class Interpreter {
                     why.add("relationship " + h.name() + " brings in " + end);
                 }
             }
+        }
+
+        /** The classes a relationship type may start from and end at. */
+        List<List<String>> ends(Evidence.TermHit h) {
+            List<dev.termgate.schema.Endpoint> eps = schema.relType(h.name()).map(r -> r.endpoints()).orElse(List.of());
+            return List.of(
+                    eps.stream().map(dev.termgate.schema.Endpoint::from).filter(java.util.Objects::nonNull).distinct().toList(),
+                    eps.stream().map(dev.termgate.schema.Endpoint::to).filter(java.util.Objects::nonNull).distinct().toList());
+        }
+
+        /** For each end, whether a node of the question may stand there. */
+        List<Boolean> present(List<List<String>> ends) {
+            return ends.stream().map(alts -> !alts.isEmpty() && alts.stream().anyMatch(end -> nodes.stream()
+                    .anyMatch(n -> schema.isSubLabel(n.label, end) || schema.isSubLabel(end, n.label)))).toList();
+        }
+
+        /** Whether the token is followed by a possessive apostrophe in the question's text. */
+        boolean possessive(int tok) {
+            int end = ev.toks.get(tok).end();
+            return end < question.length() && (question.charAt(end) == '\'' || question.charAt(end) == '\u2019');
+        }
+
+        /**
+         * Pairs of nodes the question's grammar joins directly. A node a verb brings in (an event such as a port
+         * call, named by "called at" or "visited") is joined to its subject, the node named just before the
+         * verb, and to its object, the node named just after it ("ships called at Caddenby", "ports visited by
+         * a tanker"), rather than each being joined wherever the class graph is shortest.
+         */
+        void linkEvents() {
+            for (QNode e : List.copyOf(nodes)) {
+                int[] verb = verbSpan(e);
+                if (verb == null) continue;
+                QNode subject = null;
+                QNode object = null;
+                for (QNode n : nodes) {
+                    if (n == e || n.pos < 0) continue;
+                    if (n.pos < verb[0] && onlyFunctionWords(endOf(n), verb[0], 4) && (subject == null || n.pos > subject.pos)) subject = n;
+                    if (n.pos >= verb[1] && onlyFunctionWords(verb[1], n.pos, 3) && (object == null || n.pos < object.pos)) object = n;
+                }
+                if (subject != null) link(e, subject);
+                if (object != null) link(e, object);
+            }
+        }
+
+        /** The tokens of the verb that brought in or names an event node, or null when none did. */
+        int[] verbSpan(QNode n) {
+            if (n.fromRelationship) {
+                // A relationship read from words that bring in both its ends joins nothing the question named.
+                if (nodes.stream().anyMatch(o -> o != n && o.fromRelationship && o.pos == n.pos)) return null;
+                for (Evidence.TermHit h : ev.termsOf(TermKind.RELATIONSHIP)) {
+                    if (h.from() == n.pos && !h.partial()) return new int[] {h.from(), h.to()};
+                }
+                return null;
+            }
+            if (!n.mention || n.pos < 0) return null;
+            String w = ev.toks.get(n.pos).lower();
+            boolean partial = ev.terms.stream().anyMatch(h -> h.kind() == TermKind.LABEL && h.from() == n.pos && h.name().equals(n.label) && h.partial());
+            return partial && w.endsWith("ed") ? new int[] {n.pos, endOf(n)} : null;
+        }
+
+        boolean onlyFunctionWords(int from, int to, int within) {
+            if (to - from > within) return false;
+            for (int i = from; i < to; i++) if (!Words.isStop(ev.toks.get(i))) return false;
+            return true;
+        }
+
+        void link(QNode a, QNode b) {
+            links.computeIfAbsent(a.id, k -> new HashSet<>()).add(b.id);
+            links.computeIfAbsent(b.id, k -> new HashSet<>()).add(a.id);
+            why.add(a.label + " is joined to " + b.label + " as the question's grammar says");
         }
 
         int endOf(QNode n) {
@@ -334,7 +416,10 @@ public final class Interpreter {
             QNode orderNode;
             String orderKey;
             boolean distinctCount;
+            boolean members;
             final List<String[]> projections = new ArrayList<>();
+            /** The projections the question asks for by name (not those its conditions add). */
+            final List<String[]> asked = new ArrayList<>();
             final List<QNode> extraNodes = new ArrayList<>();
         }
 
@@ -404,7 +489,8 @@ public final class Interpreter {
                 QNode holder = holder(key, prop != null ? prop.from() : q.from(), negAt);
                 addCondition(holder, key, q);
                 // A comparison's values are worth showing; an equality's are known ("40-foot containers").
-                if (!isBoolean(key) && (q.op() != Quantities.Op.EQ || q.period())) {
+                // Only the answer's own values: the dates that pick a carrier's calls are not asked of the carrier.
+                if (!isBoolean(key) && (q.op() != Quantities.Op.EQ || q.period()) && holder == focus) {
                     s.projections.add(new String[] {String.valueOf(holder.id), key});
                 }
             }
@@ -500,6 +586,8 @@ public final class Interpreter {
                     s.measureNode = other;
                 }
                 s.descending = true;
+                // "How many … each …, and which are they?": the counted things are listed beside their count.
+                s.members = s.agg == Agg.COUNT && MEMBERS.stream().anyMatch(p -> ev.indexOfPhrase(p) >= 0);
                 return s;
             }
             if (countAt >= 0 && !total) {
@@ -529,6 +617,7 @@ public final class Interpreter {
             // A list: the answer's name, the properties the question asks for, and classes asked "with" it.
             s.kind = negAt >= 0 ? "exists" : "list";
             askedProperties(s, focus, usedProps);
+            inOrder(s);
             int with = Math.max(ev.indexOf("with"), Math.max(ev.indexOf("together"), ev.indexOf("their")));
             if (with >= 0) {
                 for (QNode n : nodes) {
@@ -536,6 +625,42 @@ public final class Interpreter {
                 }
             }
             return s;
+        }
+
+        /**
+         * "In order", "in sequence": the answer is ordered by the property that word reads as (a position or a
+         * time), which is shown too. Otherwise a list showing one asked measure is ordered by it, dates first to
+         * last and amounts largest first (common practice for a listing; a bag comparison ignores it).
+         */
+        void inOrder(Shape s) {
+            for (String w : List.of("order", "sequence")) {
+                int at = ev.indexOfPhrase("in", w);
+                if (at < 0) continue;
+                for (Evidence.TermHit h : propertyReadings()) {
+                    if (h.from() != at + 1 || !(isTemporal(h.name()) || type(h.name()) == ValueType.INTEGER)) continue;
+                    QNode holder = holderIfAny(h.name(), h.from());
+                    if (holder == null || holder.negated) continue;
+                    s.orderNode = holder;
+                    s.orderKey = h.name();
+                    s.descending = false;
+                    why.add("\"in " + w + "\" orders by " + h.name());
+                    return;
+                }
+            }
+            for (String[] p : s.asked) {
+                String key = p[1];
+                if (!isTemporal(key) && type(key) != ValueType.INTEGER && type(key) != ValueType.FLOAT) continue;
+                s.orderNode = nodes.stream().filter(n -> String.valueOf(n.id).equals(p[0])).findFirst().orElse(null);
+                if (s.orderNode == null) continue;
+                s.orderKey = key;
+                s.descending = !isTemporal(key);
+                return;
+            }
+        }
+
+        boolean isTemporal(String key) {
+            ValueType t = type(key);
+            return t == ValueType.DATE || t == ValueType.DATETIME || t == ValueType.LOCALDATETIME;
         }
 
         /** Properties the question asks to see: named in full, or by one noun when the answer holds them. */
@@ -549,6 +674,7 @@ public final class Interpreter {
                 if (holder == null || holder.negated) continue;
                 if (s.projections.stream().noneMatch(p -> p[0].equals(String.valueOf(holder.id)) && p[1].equals(h.name()))) {
                     s.projections.add(new String[] {String.valueOf(holder.id), h.name()});
+                    s.asked.add(new String[] {String.valueOf(holder.id), h.name()});
                 }
             }
         }
@@ -883,6 +1009,8 @@ public final class Interpreter {
 
         /** Grows the tree from the focus; negated terminals form their own tree hanging off the focus. */
         String connect(QNode focus) {
+            linkEvents();
+            for (QNode n : nodes) terminalClasses.add(n.label);
             Set<String> mentioned = new HashSet<>();
             for (Evidence.TermHit h : ev.termsOf(TermKind.RELATIONSHIP)) mentioned.add(h.name());
             List<QNode> tree = new ArrayList<>(List.of(focus));
@@ -906,6 +1034,7 @@ public final class Interpreter {
             List<List<QNode>> orders = new ArrayList<>();
             if (todo.size() <= 4) permutations(new ArrayList<>(todo), 0, orders);
             double bestCost = Double.MAX_VALUE;
+            double bestJudged = Double.MAX_VALUE;
             List<PEdge> best = null;
             double saved = pathCost;
             int savedId = nextId;
@@ -919,7 +1048,10 @@ public final class Interpreter {
                     missing = m;
                     continue;
                 }
-                if (pathCost < bestCost - 1e-9) {
+                // A tree that joins what the grammar pairs only through other terminals is a worse reading.
+                double judged = pathCost + LINK_PENALTY * brokenLinks(trial, focus, order);
+                if (judged < bestJudged - 1e-9) {
+                    bestJudged = judged;
                     bestCost = pathCost;
                     best = trial;
                 }
@@ -941,6 +1073,53 @@ public final class Interpreter {
             return null;
         }
 
+        /** How many pairs the grammar joins are connected in the tree only through another terminal. */
+        int brokenLinks(List<PEdge> tree, QNode focus, List<QNode> terminals) {
+            Set<QNode> ends = new HashSet<>(terminals);
+            ends.add(focus);
+            int broken = 0;
+            for (QNode a : ends) {
+                for (QNode b : ends) {
+                    if (a.id >= b.id || !links.getOrDefault(a.id, Set.of()).contains(b.id)) continue;
+                    List<QNode> path = treePath(tree, a, b);
+                    if (path == null || path.subList(1, path.size() - 1).stream().anyMatch(ends::contains)) broken++;
+                }
+            }
+            return broken;
+        }
+
+        /** The nodes on the tree's path from a to b, both included; null when they are not connected. */
+        List<QNode> treePath(List<PEdge> tree, QNode a, QNode b) {
+            Map<QNode, QNode> prev = new HashMap<>();
+            java.util.ArrayDeque<QNode> queue = new java.util.ArrayDeque<>(List.of(a));
+            prev.put(a, a);
+            while (!queue.isEmpty()) {
+                QNode n = queue.poll();
+                if (n == b) break;
+                for (PEdge e : tree) {
+                    QNode o = e.a() == n ? e.b() : e.b() == n ? e.a() : null;
+                    if (o != null && prev.putIfAbsent(o, n) == null) queue.add(o);
+                }
+            }
+            if (!prev.containsKey(b)) return null;
+            List<QNode> path = new ArrayList<>();
+            for (QNode n = b; n != a; n = prev.get(n)) path.add(0, n);
+            path.add(0, a);
+            return path;
+        }
+
+        /**
+         * A node the tree passed through on the way to another terminal, of the terminal's class or a superclass:
+         * the terminal is that node (a Steiner point reused), joined at no further cost.
+         */
+        QNode passedThrough(List<QNode> tree, QNode t) {
+            for (QNode m : tree) {
+                if (m.pos == -1 && !m.mention && m.values.isEmpty() && m.conds.isEmpty() && !m.fromRelationship
+                        && schema.isSubLabel(t.label, m.label)) return m;
+            }
+            return null;
+        }
+
         void permutations(List<QNode> items, int k, List<List<QNode>> out) {
             if (k == items.size()) {
                 out.add(new ArrayList<>(items));
@@ -953,14 +1132,33 @@ public final class Interpreter {
             }
         }
 
+        /** Where a path to {@code t} may start: the tree nodes the grammar joins it to, else (or unless {@code joined}) anywhere. */
+        Map<Integer, String> starts(List<QNode> tree, QNode t, boolean joined) {
+            Map<Integer, String> starts = new LinkedHashMap<>();
+            Set<Integer> partners = links.getOrDefault(t.id, Set.of());
+            for (int i = 0; i < tree.size(); i++) {
+                if (!joined || partners.contains(tree.get(i).id)) starts.put(i, tree.get(i).label);
+            }
+            if (joined && starts.isEmpty()) for (int i = 0; i < tree.size(); i++) starts.put(i, tree.get(i).label);
+            return starts;
+        }
+
         String grow(List<QNode> tree, List<QNode> todo, Set<String> mentioned, List<PEdge> out, boolean inOrder) {
             while (!todo.isEmpty()) {
-                Map<Integer, String> starts = new LinkedHashMap<>();
-                for (int i = 0; i < tree.size(); i++) starts.put(i, tree.get(i).label);
                 SchemaGraph.Path best = null;
                 QNode bestNode = null;
+                QNode reused = inOrder ? passedThrough(tree, todo.get(0)) : null;
+                if (reused != null) {
+                    QNode t = todo.remove(0);
+                    out.replaceAll(e -> e.a() == reused ? new PEdge(t, e.type(), e.b(), e.symmetric())
+                            : e.b() == reused ? new PEdge(e.a(), e.type(), t, e.symmetric()) : e);
+                    tree.set(tree.indexOf(reused), t);
+                    continue;
+                }
                 for (QNode t : inOrder ? todo.subList(0, 1) : todo) {
-                    SchemaGraph.Path p = graph.cheapest(starts, t.label, mentioned);
+                    SchemaGraph.Path p = links.containsKey(t.id) ? graph.cheapest(starts(tree, t, true), t.label, mentioned, terminalClasses) : null;
+                    if (p == null) p = graph.cheapest(starts(tree, t, true), t.label, mentioned);
+                    if (p == null) p = graph.cheapest(starts(tree, t, false), t.label, mentioned);
                     if (p != null && (best == null || p.cost() < best.cost())) {
                         best = p;
                         bestNode = t;
@@ -1037,6 +1235,7 @@ public final class Interpreter {
                 };
                 aggAlias = s.agg == Agg.COUNT ? "count" : s.agg == Agg.SUM ? "total" : "average";
                 items.add(measure + " AS " + aggAlias);
+                if (s.agg == Agg.COUNT && s.members) items.add("collect(DISTINCT " + display(s.measureNode) + ") AS members");
                 q.append(String.join(", ", items));
                 if (s.descending != null && keys.size() > 1 && !s.limitOne) {
                     // A breakdown by several keys reads as a table: ordered by its keys.

@@ -64,6 +64,14 @@ final class SchemaGraph {
      * @param mentioned relationship types the question names: cheaper to use
      */
     Path cheapest(Map<Integer, String> starts, String goal, Set<String> mentioned) {
+        return cheapest(starts, goal, mentioned, Set.of());
+    }
+
+    /**
+     * As {@link #cheapest(Map, String, Set)}, passing through no node of a class in {@code avoid} on the way
+     * (such a node would be a second, unnamed thing of a class the question names separately).
+     */
+    Path cheapest(Map<Integer, String> starts, String goal, Set<String> mentioned, Set<String> avoid) {
         record State(String label, int start, State prev, Hop hop, double cost, int depth) {}
         PriorityQueue<State> queue = new PriorityQueue<>(Comparator.comparingDouble(State::cost));
         starts.forEach((i, l) -> queue.add(new State(l, i, null, null, 0, 0)));
@@ -84,6 +92,7 @@ final class SchemaGraph {
                 settled.put(key, s.cost());
             }
             if (s.depth() >= MAX_HOPS) continue;
+            if (s.hop() != null && avoid.contains(s.label())) continue;
             for (Edge e : edges) {
                 for (boolean forward : new boolean[] {true, false}) {
                     String here = forward ? e.from() : e.to();
