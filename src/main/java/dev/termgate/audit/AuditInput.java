@@ -100,9 +100,38 @@ public final class AuditInput {
         return e == null || e.isJsonNull() || !e.isJsonPrimitive() ? Optional.empty() : Optional.of(e.getAsString());
     }
 
+    /**
+     * A JSON line where queries are expected is a batch output given to {@code --queries} (whose lines would
+     * otherwise all be reported as invalid queries): say so, with its format version when it is another one.
+     */
+    private static void refuseBatchOutput(Path file, List<String> lines) throws Invalid {
+        for (int i = 0; i < lines.size(); i++) {
+            String text = lines.get(i).strip();
+            if (text.isEmpty()) continue;
+            if (!text.startsWith("{")) return;
+            JsonElement format;
+            try {
+                JsonElement e = JsonParser.parseString(text);
+                format = e.isJsonObject() ? e.getAsJsonObject().get("format") : null;
+            } catch (JsonParseException e) {
+                return;
+            }
+            if (format == null || !format.isJsonPrimitive()) return;
+            String f = format.getAsString();
+            String where = file.getFileName() + " line " + (i + 1) + ": ";
+            if (f.equals(AnswerJson.FORMAT)) {
+                throw new Invalid(where + "this is a batch output (format " + f + "), not a file of queries; audit it as"
+                        + " FILE.jsonl, without --queries");
+            }
+            throw new Invalid(where + "this is a JSON file written in format " + f + ", not a file of queries; this version"
+                    + " of termgate audits queries separated by blank lines, or batch outputs in format " + AnswerJson.FORMAT);
+        }
+    }
+
     /** Queries separated by blank lines, each checked by the gate for the terms it uses. */
     public static Read queries(Path file, QueryGate gate) throws IOException, Invalid {
         List<String> lines = Files.readAllLines(file, StandardCharsets.UTF_8);
+        refuseBatchOutput(file, lines);
         List<AuditEntry> out = new ArrayList<>();
         StringBuilder cur = new StringBuilder();
         int start = 0;

@@ -105,12 +105,15 @@ public final class Evaluator {
                 o.attempts().size(), repairs, pt, ct, translateMs, ms(System.nanoTime() - t0), query, q.gold(), detail, terms);
     }
 
-    /** The repair's kind: the first word of its description ("label 'Vesel' → 'Vessel'" → label). */
+    /**
+     * The repair's kind: its description up to the first quoted term ("replace label 'Vesel' → 'Vessel'" →
+     * "replace label", "flip direction 'r' …" → "flip direction"), so that kinds group as the repairer names them.
+     */
     static String kind(Checked.Edit e) {
         String w = e.what().strip();
-        int cut = 0;
-        while (cut < w.length() && (Character.isLetter(w.charAt(cut)) || w.charAt(cut) == '-' || w.charAt(cut) == '_')) cut++;
-        return cut == 0 ? "other" : w.substring(0, cut).toLowerCase(Locale.ROOT);
+        int quote = w.indexOf('\'');
+        String head = (quote < 0 ? w : w.substring(0, quote)).strip().toLowerCase(Locale.ROOT);
+        return head.isEmpty() || !Character.isLetter(head.charAt(0)) ? "other" : head;
     }
 
     /**

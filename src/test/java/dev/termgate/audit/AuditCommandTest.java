@@ -17,7 +17,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 /** {@code termgate audit} of batch output files (format termgate-answer/1, as translate's AnswerJson writes them). */
 class AuditCommandTest {
 
-    record Run(int code, String out, String err) {}
+    record Run(int code, String out, String err) {
+        String all() {
+            return out + err;
+        }
+    }
 
     static Run audit(String... args) {
         StringWriter out = new StringWriter();
