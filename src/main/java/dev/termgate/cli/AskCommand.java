@@ -46,6 +46,9 @@ public final class AskCommand implements Callable<Integer> {
     @Option(names = "--with-rows", negatable = true, defaultValue = "true", description = "include rows in --format json (default: ${DEFAULT-VALUE})")
     boolean withRows;
 
+    @Option(names = "--explain", description = "also show the plan that ran: the Gremlin traversals and the client-side steps")
+    boolean explain;
+
     @Spec picocli.CommandLine.Model.CommandSpec spec;
 
     private final Pipeline.Factory factory;
@@ -84,20 +87,36 @@ public final class AskCommand implements Callable<Integer> {
                 throw new UserError(Exit.INVALID, "cancelled");
             }
             switch (format) {
-                case "json" -> out.println(AnswerJson.pretty(AnswerJson.of(answer, withRows)));
+                case "json" -> {
+                    var json = AnswerJson.of(answer, withRows);
+                    if (explain) json.addProperty("plan", answer.run().map(r -> r.plan()).orElse(null));
+                    out.println(AnswerJson.pretty(json));
+                }
                 case "csv" -> {
                     answer.run().filter(r -> !r.failed()).ifPresent(r -> out.print(dev.termgate.translate.Tables.csv(r.columns(), r.rows())));
-                    err.print(AnswerText.render(new Answer(answer.outcome(), java.util.Optional.empty(), answer.runTime()),
-                            model.attempts, "text"));
+                    err.print(AnswerText.render(withoutRun(answer), model.attempts, "text"));
                     answer.run().filter(r -> r.failed()).ifPresent(r -> err.print(AnswerText.rows(r, "text")));
                 }
-                default -> out.print(AnswerText.render(answer, model.attempts, "text"));
+                default -> {
+                    if (explain && answer.run().isPresent()) {
+                        // The plan goes between the query and its rows, as in run --explain.
+                        out.print(AnswerText.render(withoutRun(answer), model.attempts, "text"));
+                        out.print(AnswerText.plan(answer.run().get()));
+                        out.print(AnswerText.rows(answer.run().get(), "text"));
+                    } else {
+                        out.print(AnswerText.render(answer, model.attempts, "text"));
+                    }
+                }
             }
             out.flush();
             return exitCode(answer);
         } finally {
             AskWiring.closeQuietly(pipeline);
         }
+    }
+
+    private static Answer withoutRun(Answer a) {
+        return new Answer(a.outcome(), java.util.Optional.empty(), a.runTime());
     }
 
     static int exitCode(Answer a) {

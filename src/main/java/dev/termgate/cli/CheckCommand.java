@@ -3,6 +3,13 @@ package dev.termgate.cli;
 import com.google.gson.Gson;
 import com.google.gson.GsonBuilder;
 import com.google.gson.JsonObject;
+import dev.termgate.engine.Engine;
+import dev.termgate.engine.EngineException;
+import dev.termgate.graph.ImportException;
+import dev.termgate.translate.GraphSource;
+import dev.termgate.translate.PipelineSpec;
+import dev.termgate.engine.Limits;
+import dev.termgate.engine.Request;
 import dev.termgate.parser.QueryFile;
 import dev.termgate.repair.CheckJson;
 import dev.termgate.repair.CheckResult;
@@ -23,6 +30,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 
@@ -59,6 +67,13 @@ public final class CheckCommand implements Callable<Integer> {
     @Option(names = "--no-repair", description = "Report only; do not apply certain repairs.")
     boolean noRepair;
 
+    @Option(names = "--explain", description = "Also show the plan of each valid query on the graph (the demo graph unless --graph):"
+            + " the Gremlin traversals and the client-side steps.")
+    boolean explain;
+
+    @Option(names = "--graph", paramLabel = "FILE", description = "With --explain: the graph the plan is made for (repeatable; as for run).")
+    List<Path> graphs = new ArrayList<>();
+
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (default) or json: one JSON object per query, in input order.")
     Format format;
@@ -81,23 +96,45 @@ public final class CheckCommand implements Callable<Integer> {
         QueryCheck.Mode mode = noRepair ? QueryCheck.Mode.CHECK_ONLY : QueryCheck.Mode.REPAIR;
         boolean allValid = true;
         Gson gson = new GsonBuilder().serializeNulls().disableHtmlEscaping().create();
-        for (QueryFile.Entry entry : entries) {
-            CheckResult c = QueryCheck.check(entry.text(), schema, mode);
-            allValid &= c.valid();
-            if (format == Format.json) {
-                JsonObject o = new JsonObject();
-                o.addProperty("index", entry.index());
-                o.addProperty("line", entry.line());
-                CheckJson.of(c, entry.line() - 1).entrySet().forEach(e -> o.add(e.getKey(), e.getValue()));
-                out.println(gson.toJson(o));
-            } else {
-                if (entry.index() > 0) out.println();
-                if (file != null) out.println("// query " + (entry.index() + 1) + ", line " + entry.line());
-                out.print(CheckText.of(c));
+        if (!graphs.isEmpty() && !explain) throw new UserError(Exit.USAGE, "--graph goes with --explain");
+        try (Engine planner = explain ? planner(schema) : null) {
+            for (QueryFile.Entry entry : entries) {
+                CheckResult c = QueryCheck.check(entry.text(), schema, mode);
+                allValid &= c.valid();
+                String plan = explain ? plan(planner, c, schema) : null;
+                if (format == Format.json) {
+                    JsonObject o = new JsonObject();
+                    o.addProperty("index", entry.index());
+                    o.addProperty("line", entry.line());
+                    CheckJson.of(c, entry.line() - 1).entrySet().forEach(e -> o.add(e.getKey(), e.getValue()));
+                    if (explain) o.addProperty("plan", plan);
+                    out.println(gson.toJson(o));
+                } else {
+                    if (entry.index() > 0) out.println();
+                    if (file != null) out.println("// query " + (entry.index() + 1) + ", line " + entry.line());
+                    out.print(CheckText.of(c));
+                    if (plan != null) out.print("plan:\n" + plan.stripTrailing().indent(2));
+                }
             }
         }
         out.flush();
         return allValid ? Exit.OK : Exit.INVALID;
+    }
+
+    /** The graph plans are made for: the engine compiles a plan from the query, the schema and what the graph stores. */
+    private Engine planner(GraphSchema schema) {
+        GraphSchema importSchema = schema != null ? schema : ontology.schema(spec.commandLine().getErr());
+        try {
+            return GraphSource.open(PipelineSpec.local(importSchema, graphs));
+        } catch (EngineException | ImportException e) {
+            throw new UserError(Exit.INVALID, e.getMessage());
+        }
+    }
+
+    /** The plan the embedded engine would run, for a query that is valid (possibly after repair); null otherwise. */
+    private static String plan(Engine planner, CheckResult c, GraphSchema schema) {
+        return c.runnableTree().map(tree -> planner.explain(Request.of(tree, c.repaired().orElse(c.source()),
+                schema == null ? GraphSchema.empty() : schema, Limits.defaults())).render()).orElse(null);
     }
 
     private static String readInput(String file) throws IOException {

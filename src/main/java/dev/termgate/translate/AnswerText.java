@@ -47,6 +47,11 @@ public final class AnswerText {
         return sb.toString();
     }
 
+    /** The plan that ran, for {@code --explain}. */
+    public static String plan(RunResult r) {
+        return r.plan().isBlank() ? "plan: (none recorded)\n" : "plan:\n" + indent(r.plan().stripTrailing()) + "\n";
+    }
+
     public static String rows(RunResult r, String format) {
         StringBuilder sb = new StringBuilder();
         if (r.failed()) {

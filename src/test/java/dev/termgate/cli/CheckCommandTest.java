@@ -34,6 +34,18 @@ class CheckCommandTest {
     }
 
     @Test
+    void explainShowsTheOntologyAwarePlanOfAValidQuery() {
+        Run r = run("check", "--explain", "MATCH (v:Vessel)-[:OPERATED_BY]->(c:Carrier) WHERE c.name = 'x' RETURN v.name");
+        assertEquals(0, r.exit(), r.err());
+        assertTrue(r.out().contains("plan:\n  gremlin: MATCH"), r.out());
+        // The demo ontology's subclasses of Vessel are matched too (issue "Run validated queries").
+        assertTrue(r.out().contains("Tanker"), r.out());
+        Run invalid = run("check", "--explain", "--format", "json", "MATCH (v:Vesel) RETURN v.nme, v.x");
+        assertEquals(1, invalid.exit());
+        assertTrue(JsonParser.parseString(invalid.out()).getAsJsonObject().get("plan").isJsonNull(), "no plan for an invalid query");
+    }
+
+    @Test
     void invalidQueryPrintsCaretDiagnostic() {
         Run r = run("check", "--schema-free", "MATCH (v:Vessel) RETRUN v");
         assertEquals(1, r.exit());

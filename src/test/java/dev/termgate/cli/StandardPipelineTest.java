@@ -23,6 +23,12 @@ class StandardPipelineTest {
             assertTrue(r.out().contains("'inCountry' → 'IN_COUNTRY'"), r.out());
             assertTrue(r.out().contains(" rows)") || r.out().contains(" row)"), r.out());
             assertTrue(server.seen().get(0).allText().contains("Port"), "the card went to the model");
+            CliRun.Result explained = CliRun.run(new AskCommand(), CliRun.withEnv(CliRun.env()), "--model", server.modelOption("m"),
+                    "--base-url", server.baseUrl(), "--explain", "List all ports in Valdoria.");
+            assertEquals(0, explained.code(), explained.all());
+            String out = explained.out();
+            assertTrue(out.indexOf("plan:\n  gremlin: ") > out.indexOf("query:") && out.indexOf("plan:") < out.lastIndexOf(" rows)"),
+                    "the plan between the query and the rows: " + out);
         }
     }
 
