@@ -45,13 +45,19 @@ final class Context {
      * Every node of the query of the given type, in pre-order. The tree is walked once per analysis and shared
      * by the checks (a walk reads record components reflectively, which dominates the cost of small checks).
      */
+    @SuppressWarnings("unchecked")
     <T extends Node> List<T> nodes(Node root, Class<T> type) {
         if (all == null) {
             all = new ArrayList<>(64);
             dev.termgate.query.Trees.walk(root, all::add);
         }
         List<T> out = new ArrayList<>();
-        for (Node n : all) if (type.isInstance(n)) out.add(type.cast(n));
+        if (type.isRecord()) {
+            // one record class: compare classes, cheaper than isInstance against every node
+            for (Node n : all) if (n.getClass() == type) out.add((T) n);
+        } else {
+            for (Node n : all) if (type.isInstance(n)) out.add((T) n);
+        }
         return out;
     }
 

@@ -326,7 +326,7 @@ final class PatternCheck implements Check {
                 Cand classes = state.getOrDefault(use.target(), base.getOrDefault(use.target(), Cand.ANY));
                 Cand carriers = ix.carriersOf(use.key());
                 if (classes.intersects(carriers)) {
-                    boolean direct = classes.any() || key.get().domains().stream().anyMatch(classes.classes()::contains);
+                    boolean direct = classes.any() || ix.holdsAny(classes, key.get().domains());
                     cx.use(TermKind.PROPERTY, use.key(), use.keySpan(), direct ? TermUse.Via.DIRECT : TermUse.Via.SUPERCLASS);
                     continue;
                 }
@@ -356,7 +356,7 @@ final class PatternCheck implements Check {
             }
             Pattern.NodePattern l = labelled.get(b);
             if (l != null) return Quote.andList(written(l));
-            if (!c.any() && !c.empty() && c.classes().size() <= 3) {
+            if (!c.any() && !c.empty() && c.size() <= 3) {
                 return (b.anonymous() ? "a node" : "'" + b.name + "'") + " (" + Quote.orList(new ArrayList<>(new TreeSet<>(c.classes()))) + ")";
             }
             return b.anonymous() ? "a node" : "'" + b.name + "'";

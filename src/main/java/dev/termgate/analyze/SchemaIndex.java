@@ -8,10 +8,14 @@ import dev.termgate.schema.RelType;
 import dev.termgate.schema.TermKind;
 
 import java.util.ArrayList;
+import java.util.Collection;
+import java.util.Arrays;
+import java.util.HashMap;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 
 /**
@@ -30,14 +34,42 @@ final class SchemaIndex {
     private final Map<String, Cand> propertyClasses = new ConcurrentHashMap<>();
     private final Map<TermKind, Lenient> lenient = new EnumMap<>(TermKind.class);
 
+    /** Each label's class id (its position in the schema), and back: {@link Cand} holds ids, not names. */
+    private final Map<String, Integer> classIds = new HashMap<>();
+    private final String[] classNames;
+
     SchemaIndex(GraphSchema schema) {
         this.schema = schema;
+        this.classNames = schema.labels().keySet().toArray(new String[0]);
+        for (int i = 0; i < classNames.length; i++) classIds.put(classNames[i], i);
     }
 
     /** The classes a node labelled {@code label} may be (the label and its subclasses); ANY when unknown. */
     Cand classesOf(String label) {
         return labelClasses.computeIfAbsent(label, l ->
-                schema.labels().containsKey(l) ? Cand.of(schema.subLabels(l)) : Cand.ANY);
+                schema.labels().containsKey(l) ? idsOf(schema.subLabels(l)) : Cand.ANY);
+    }
+
+    /** Whether the set holds one of the named classes. */
+    boolean holdsAny(Cand c, Collection<String> labels) {
+        for (String l : labels) {
+            Integer id = classIds.get(l);
+            if (id != null && c.holds(id)) return true;
+        }
+        return false;
+    }
+
+    private Cand idsOf(Set<String> labels) {
+        if (labels.size() > Cand.LIMIT) return Cand.ANY;
+        int[] ids = new int[labels.size()];
+        int n = 0;
+        for (String l : labels) {
+            Integer id = classIds.get(l);
+            if (id != null) ids[n++] = id;
+        }
+        ids = Arrays.copyOf(ids, n);
+        Arrays.sort(ids);
+        return Cand.of(ids, classNames);
     }
 
     /** The classes on which the key may appear (domains and their subclasses); ANY for a domain-free key. */
