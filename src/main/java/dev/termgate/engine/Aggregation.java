@@ -86,9 +86,7 @@ final class Aggregation {
                 case "sum" -> sum();
                 case "avg" -> {
                     if (values.isEmpty()) yield null;
-                    double s = 0;
-                    for (Object v : values) s += number(v).doubleValue();
-                    yield s / values.size();
+                    yield floatSum() / values.size();
                 }
                 case "min" -> values.stream().min(Values::orderCompare).orElse(null);
                 case "max" -> values.stream().max(Aggregation::maxCompare).orElse(null);
@@ -100,17 +98,31 @@ final class Aggregation {
 
         private Object sum() {
             boolean floating = values.stream().anyMatch(v -> number(v) instanceof Double);
-            if (floating) {
-                double d = 0;
-                for (Object v : values) d += number(v).doubleValue();
-                return d;
-            }
+            if (floating) return floatSum();
             long total = 0;
             for (Object v : values) {
                 try { total = Math.addExact(total, number(v).longValue()); }
                 catch (ArithmeticException e) { throw EngineException.runtime("integer overflow in sum()"); }
             }
             return total;
+        }
+
+        /**
+         * The sum rounded once, from the exact sum: the same whatever order the rows came in (an index, a remote
+         * server or a scan may deliver them differently, and adding floats left to right depends on the order).
+         */
+        private double floatSum() {
+            java.math.BigDecimal exact = java.math.BigDecimal.ZERO;
+            double plain = 0;
+            boolean finite = true;
+            for (Object v : values) {
+                Number n = number(v);
+                double d = n.doubleValue();
+                plain += d;
+                if (!Double.isFinite(d)) finite = false;
+                else exact = exact.add(n instanceof Double ? new java.math.BigDecimal(d) : java.math.BigDecimal.valueOf(n.longValue()));
+            }
+            return finite ? exact.doubleValue() : plain;
         }
 
         private Object stdev(boolean population) {

@@ -51,7 +51,7 @@ public final class CypherScript {
             }
         }
         TinkerGraph g = builder.graph();
-        GraphPort port = new GraphPort(g.traversal(), "import");
+        GraphPort port = new GraphPort(g.traversal(), "import", g);
         RunControl control = RunControl.of(Limits.unlimitedRows(Duration.ofMinutes(10)));
         Executor ex = new Executor(port, GraphSchema.empty(), control, params, TraversalEngine.namer(text),
                 (clause, rows, self) -> create((Clause.Create) clause, rows, self, builder));

@@ -16,7 +16,7 @@ public final class Engines {
 
     /** An engine over an in-process TinkerGraph (already loaded; see {@link GraphFiles}). */
     public static Engine embedded(TinkerGraph graph, String description) {
-        return new TraversalEngine(new GraphPort(graph.traversal(), description), false, () -> { });
+        return new TraversalEngine(new GraphPort(graph.traversal(), description, graph), false, () -> { });
     }
 
     /**
@@ -63,6 +63,6 @@ public final class Engines {
             close.run();
             throw new EngineException(Code.REMOTE_UNAVAILABLE, e, url, TraversalEngine.rootMessage(e));
         }
-        return new TraversalEngine(new GraphPort(g, url), true, close);
+        return new TraversalEngine(new GraphPort(g, url, null), true, close);
     }
 }

@@ -6,6 +6,8 @@ import dev.termgate.schema.GraphSchema;
 import org.apache.tinkerpop.gremlin.process.traversal.dsl.graph.GraphTraversalSource;
 import org.apache.tinkerpop.gremlin.structure.Direction;
 import org.apache.tinkerpop.gremlin.structure.T;
+import org.apache.tinkerpop.gremlin.structure.Vertex;
+import org.apache.tinkerpop.gremlin.tinkergraph.structure.TinkerGraph;
 
 import java.util.ArrayList;
 import java.util.HashSet;
@@ -17,16 +19,36 @@ import java.util.Set;
 /**
  * The one door to a graph, embedded or remote: a traversal source plus the catalogue of stored vertex and
  * edge labels (needed to turn label tests into {@code hasLabel(within(...))}, see {@link LabelCodec}).
+ *
+ * <p>Indexes of the embedded graph are built on first use: the first query that starts a match by property
+ * equality on a key ({@code (c {name:'x'})} or {@code WHERE c.name = 'x'}) has TinkerGraph index that vertex
+ * key, and every later lookup by that key is a hash probe instead of a scan. Indexing on demand rather than at
+ * load keeps loading fast and indexes exactly the keys questions filter on; the query path never writes, so an
+ * index, once built, stays right. A remote server decides about its own indexes from the same bytecode.
  */
 final class GraphPort {
     private final GraphTraversalSource g;
     private final String description;
+    private final TinkerGraph local;
+    private final Set<String> indexed = new HashSet<>();
     private volatile List<String> vertexLabels;
     private volatile List<String> edgeLabels;
 
-    GraphPort(GraphTraversalSource g, String description) {
+    /** @param local the embedded graph, whose indexes this port manages; null for a remote server */
+    GraphPort(GraphTraversalSource g, String description, TinkerGraph local) {
         this.g = g;
         this.description = description;
+        this.local = local;
+    }
+
+    /**
+     * Makes lookups by {@code key} on the embedded graph indexed. Until this returns, no traversal of this
+     * port starts with an equality on the key (see Matcher's use), so a concurrent run never sees half an index.
+     */
+    synchronized void indexVertexKey(String key) {
+        if (local == null || indexed.contains(key)) return;
+        local.createIndex(key, Vertex.class);
+        indexed.add(key);
     }
 
     GraphTraversalSource g() {

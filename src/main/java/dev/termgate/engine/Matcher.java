@@ -4,6 +4,7 @@ import dev.termgate.query.Expr;
 import dev.termgate.query.Pattern;
 import dev.termgate.query.Trees;
 import dev.termgate.schema.GraphSchema;
+import org.apache.tinkerpop.gremlin.process.traversal.Compare;
 import org.apache.tinkerpop.gremlin.process.traversal.P;
 import org.apache.tinkerpop.gremlin.process.traversal.TextP;
 import org.apache.tinkerpop.gremlin.process.traversal.dsl.graph.GraphTraversal;
@@ -47,9 +48,13 @@ final class Matcher {
     /** A WHERE conjunct of the form {@code var.key OP value} where value is fixed for the row. */
     record Pushdown(String var, String key, Expr.BinaryOp op, Expr value, boolean notNull) {}
 
-    /** The pattern as it will run: possibly reversed so that it starts from a bound or selective node. */
+    /**
+     * The pattern as it will run. A fixed-length part keeps its written order and starts from node {@code start}
+     * (the most selective one: bound, or looked up by property equality), walking right to the end and then
+     * back left from the start; a variable-length part is expanded from one end, so it may be reversed instead.
+     */
     record PartPlan(List<Pattern.NodePattern> nodes, List<Pattern.RelPattern> rels, List<String> nodeVars,
-                    List<String> relVars, boolean reversed, Optional<String> pathVar, boolean varLength) {}
+                    List<String> relVars, boolean reversed, Optional<String> pathVar, boolean varLength, int start) {}
 
     // ---------------------------------------------------------------- whole patterns
 
@@ -110,9 +115,17 @@ final class Matcher {
             relVars.add(r.variable().map(Expr.Variable::name).orElse(Row.Names.hidden("r", r.span().startOffset(), i)));
         }
         boolean varLength = rels.stream().anyMatch(r -> r.length().isPresent());
-        boolean reverse = !rels.isEmpty()
-                && score(nodes.get(nodes.size() - 1), nodeVars.get(nodeVars.size() - 1), row, pushed)
-                > score(nodes.get(0), nodeVars.get(0), row, pushed);
+        int best = 0;
+        int bestScore = score(nodes.get(0), nodeVars.get(0), row, pushed);
+        for (int i = 1; i < nodes.size(); i++) {
+            int sc = score(nodes.get(i), nodeVars.get(i), row, pushed);
+            // A variable-length part can only start at an end.
+            if (sc > bestScore && (!varLength || i == nodes.size() - 1)) {
+                best = i;
+                bestScore = sc;
+            }
+        }
+        boolean reverse = varLength && best > 0;
         if (reverse) {
             Collections.reverse(nodes);
             Collections.reverse(nodeVars);
@@ -120,15 +133,21 @@ final class Matcher {
             Collections.reverse(relVars);
             rels.replaceAll(Matcher::flipped);
         }
-        return new PartPlan(nodes, rels, nodeVars, relVars, reverse, part.pathVariable().map(Expr.Variable::name), varLength);
+        return new PartPlan(nodes, rels, nodeVars, relVars, reverse, part.pathVariable().map(Expr.Variable::name), varLength,
+                reverse ? 0 : best);
     }
 
-    /** Start from a bound node, else from the most constrained end. */
+    /**
+     * How selective starting from a node is: a bound node is one lookup by id; a property equality (inline
+     * map or WHERE conjunct) is an index probe; a range or text predicate and a label narrow a scan less.
+     */
     private static int score(Pattern.NodePattern n, String var, Row row, List<Pushdown> pushed) {
         if (row.has(var)) return 100;
         int s = 0;
         if (n.properties().isPresent()) s += 10;
-        for (Pushdown p : pushed) if (p.var().equals(var)) s += p.op() == Expr.BinaryOp.EQ ? 10 : 3;
+        for (Pushdown p : pushed) {
+            if (p.var().equals(var)) s += p.op() == Expr.BinaryOp.EQ || p.op() == Expr.BinaryOp.IN ? 10 : 3;
+        }
         if (n.labels().isPresent()) s += 5;
         return s;
     }
@@ -217,7 +236,7 @@ final class Matcher {
         }
         if (!isScalar(v)) return null;
         return switch (p.op()) {
-            case EQ -> P.eq(v);
+            case EQ -> equality(v);
             case NE -> P.neq(v);
             case LT -> P.lt(v);
             case GT -> P.gt(v);
@@ -228,6 +247,15 @@ final class Matcher {
             case CONTAINS -> v instanceof String s ? TextP.containing(s) : null;
             default -> null;
         };
+    }
+
+    /**
+     * {@code eq} for strings, which lets the graph answer from an index; {@code within} for numbers and
+     * booleans, which compares the same way (1 = 1.0) but never uses an index, because an index probes by exact
+     * stored value and would miss 1.0 when asked for 1.
+     */
+    private static P<?> equality(Object v) {
+        return v instanceof String ? P.eq(v) : P.within(List.of(v));
     }
 
     private static boolean isScalar(Object v) {
@@ -279,42 +307,31 @@ final class Matcher {
         return true;
     }
 
-    /** Builds the single traversal of a fixed-length part; null when it can match nothing. */
+    /**
+     * Builds the single traversal of a fixed-length part, starting at node {@code plan.start()}: rightwards to
+     * the last node, then from the start back leftwards; null when it can match nothing. Steps are labelled by
+     * their written position ({@code n0..nk}, {@code r0..rk-1}), whatever order they run in.
+     */
+    @SuppressWarnings("unchecked")
     GraphTraversal<Vertex, ?> compile(PartPlan plan, Row row, List<Pushdown> pushed, boolean explain) {
-        GraphTraversal<Vertex, Vertex> t;
-        String first = plan.nodeVars().get(0);
-        if (row.has(first)) {
-            t = port.g().V(explain ? "$" + first : ((NodeValue) row.get(first)).id());
-        } else {
-            t = port.g().V();
-        }
-        if (!filterNode(t, plan, 0, row, pushed, explain)) return null;
-        t.as("n0");
+        int s = plan.start();
+        String first = plan.nodeVars().get(s);
+        GraphTraversal<Vertex, Vertex> t = row.has(first)
+                ? port.g().V(explain ? "$" + first : ((NodeValue) row.get(first)).id())
+                : port.g().V();
+        if (!filterNode(t, plan, s, row, pushed, explain)) return null;
+        t.as("n" + s);
+        List<Integer> visitedNodes = new ArrayList<>(List.of(s));
+        List<Integer> visitedRels = new ArrayList<>();
         int k = plan.rels().size();
-        for (int i = 0; i < k; i++) {
-            Pattern.RelPattern rel = plan.rels().get(i);
-            String[] types = edgeLabels(rel);
-            if (types == null) return null;
-            GraphTraversal<Vertex, org.apache.tinkerpop.gremlin.structure.Edge> e = switch (rel.direction()) {
-                case OUTGOING -> t.outE(types);
-                case INCOMING -> t.inE(types);
-                case BOTH -> t.bothE(types);
-            };
-            String rv = plan.relVars().get(i);
-            if (row.has(rv) && row.get(rv) instanceof RelValue bound) e.hasId(explain ? "$" + rv : bound.id());
-            applyPushdowns(e, rv, row, pushed, explain);
-            pushInline(e, rel.properties(), row, explain);
-            e.as("r" + i);
-            for (int j = 0; j < i; j++) e.where("r" + i, P.neq("r" + j));
-            t = switch (rel.direction()) {
-                case OUTGOING -> e.inV();
-                case INCOMING -> e.outV();
-                case BOTH -> e.otherV();
-            };
-            if (!filterNode(t, plan, i + 1, row, pushed, explain)) return null;
-            t.as("n" + (i + 1));
-            int earlier = plan.nodeVars().subList(0, i + 1).indexOf(plan.nodeVars().get(i + 1));
-            if (earlier >= 0) t.where("n" + (i + 1), P.eq("n" + earlier));
+        for (int i = s; i < k; i++) {
+            t = hop(t, plan, i, plan.rels().get(i), i + 1, row, pushed, explain, visitedNodes, visitedRels);
+            if (t == null) return null;
+        }
+        if (s > 0 && s < k) t = (GraphTraversal<Vertex, Vertex>) (GraphTraversal<Vertex, ?>) t.select("n" + s);
+        for (int i = s - 1; i >= 0; i--) {
+            t = hop(t, plan, i, flipped(plan.rels().get(i)), i, row, pushed, explain, visitedNodes, visitedRels);
+            if (t == null) return null;
         }
         if (k == 0) return t.elementMap();
         String[] rest = new String[2 * k];
@@ -322,8 +339,45 @@ final class Matcher {
             rest[2 * i] = "r" + i;
             rest[2 * i + 1] = "n" + (i + 1);
         }
-        return t.select("n0", rest[0], rest.length > 1 ? java.util.Arrays.copyOfRange(rest, 1, rest.length) : new String[0])
-                .by(__.elementMap());
+        return t.select("n0", rest[0], java.util.Arrays.copyOfRange(rest, 1, rest.length)).by(__.elementMap());
+    }
+
+    /**
+     * Appends relationship {@code ri} (walked in the direction {@code rel} gives) and its far node {@code ni};
+     * relationship uniqueness and a variable repeated within the part become {@code where} steps.
+     */
+    private GraphTraversal<Vertex, Vertex> hop(GraphTraversal<Vertex, Vertex> t, PartPlan plan, int ri, Pattern.RelPattern rel,
+                                               int ni, Row row, List<Pushdown> pushed, boolean explain,
+                                               List<Integer> visitedNodes, List<Integer> visitedRels) {
+        String[] types = edgeLabels(rel);
+        if (types == null) return null;
+        GraphTraversal<Vertex, org.apache.tinkerpop.gremlin.structure.Edge> e = switch (rel.direction()) {
+            case OUTGOING -> t.outE(types);
+            case INCOMING -> t.inE(types);
+            case BOTH -> t.bothE(types);
+        };
+        String rv = plan.relVars().get(ri);
+        if (row.has(rv) && row.get(rv) instanceof RelValue bound) e.hasId(explain ? "$" + rv : bound.id());
+        applyPushdowns(e, rv, row, pushed, explain, false);
+        pushInline(e, rel.properties(), row, explain, false);
+        e.as("r" + ri);
+        for (int j : visitedRels) e.where("r" + ri, P.neq("r" + j));
+        visitedRels.add(ri);
+        GraphTraversal<Vertex, Vertex> next = switch (rel.direction()) {
+            case OUTGOING -> e.inV();
+            case INCOMING -> e.outV();
+            case BOTH -> e.otherV();
+        };
+        if (!filterNode(next, plan, ni, row, pushed, explain)) return null;
+        next.as("n" + ni);
+        for (int j : visitedNodes) {
+            if (plan.nodeVars().get(j).equals(plan.nodeVars().get(ni))) {
+                next.where("n" + ni, P.eq("n" + j));
+                break;
+            }
+        }
+        visitedNodes.add(ni);
+        return next;
     }
 
     private String[] edgeLabels(Pattern.RelPattern rel) {
@@ -332,22 +386,29 @@ final class Matcher {
         return labels.isEmpty() ? null : labels.toArray(String[]::new);
     }
 
-    /** Adds label, bound-id and property steps for node i; false when no stored label can match. */
+    /**
+     * Adds label, bound-id and property steps for node i; false when no stored label can match. On the node a
+     * traversal starts from (no bound id), the property equalities are what the graph's index answers.
+     */
     private boolean filterNode(GraphTraversal<?, Vertex> t, PartPlan plan, int i, Row row, List<Pushdown> pushed, boolean explain) {
         Pattern.NodePattern n = plan.nodes().get(i);
         String var = plan.nodeVars().get(i);
-        if (i > 0 && row.has(var)) t.hasId(explain ? "$" + var : ((NodeValue) row.get(var)).id());
+        boolean bound = row.has(var);
+        if (i != plan.start() && bound) t.hasId(explain ? "$" + var : ((NodeValue) row.get(var)).id());
         if (n.labels().isPresent()) {
             List<String> stored = port.vertexLabelsMatching(n.labels().get(), schema);
             if (stored.isEmpty() && !explain) return false;
-            t.hasLabel(P.within(stored));
+            if (stored.size() == 1) t.hasLabel(stored.get(0));
+            else t.hasLabel(P.within(stored));
         }
-        applyPushdowns(t, var, row, pushed, explain);
-        pushInline(t, n.properties(), row, explain);
+        boolean start = i == plan.start() && !bound;
+        applyPushdowns(t, var, row, pushed, explain, start);
+        pushInline(t, n.properties(), row, explain, start);
         return true;
     }
 
-    private void applyPushdowns(GraphTraversal<?, ?> t, String var, Row row, List<Pushdown> pushed, boolean explain) {
+    private void applyPushdowns(GraphTraversal<?, ?> t, String var, Row row, List<Pushdown> pushed, boolean explain,
+                                boolean start) {
         if (row.has(var)) return;
         for (Pushdown p : pushed) {
             if (!p.var().equals(var)) continue;
@@ -356,8 +417,14 @@ final class Matcher {
                 continue;
             }
             P<?> pred = explain ? explainPredicate(p, row) : predicate(p, row);
-            if (pred != null) t.has(p.key(), pred);
+            if (pred != null) has(t, p.key(), pred, start && !explain);
         }
+    }
+
+    /** A property step; an equality on the start node first has the embedded graph index the key. */
+    private void has(GraphTraversal<?, ?> t, String key, P<?> pred, boolean start) {
+        if (start && pred.getBiPredicate() == Compare.eq) port.indexVertexKey(key);
+        t.has(key, pred);
     }
 
     private P<?> explainPredicate(Pushdown p, Row row) {
@@ -368,7 +435,7 @@ final class Matcher {
         }
     }
 
-    private void pushInline(GraphTraversal<?, ?> t, Optional<Expr> props, Row row, boolean explain) {
+    private void pushInline(GraphTraversal<?, ?> t, Optional<Expr> props, Row row, boolean explain, boolean start) {
         if (props.isEmpty() || !(props.get() instanceof Expr.MapLit m)) return;
         for (Expr.MapEntry en : m.entries()) {
             if (!isConstantish(en.value()) && !onlyBound(en.value(), row)) continue;
@@ -379,7 +446,7 @@ final class Matcher {
                 if (explain) continue;
                 throw ex;
             }
-            if (isScalar(v)) t.has(en.key(), P.eq(v));
+            if (isScalar(v)) has(t, en.key(), equality(v), start && !explain);
         }
     }
 
@@ -513,7 +580,7 @@ final class Matcher {
         }
         GraphTraversal<Vertex, Vertex> t = port.g().V();
         PartPlan single = new PartPlan(plan.nodes().subList(0, 1), List.of(), plan.nodeVars().subList(0, 1), List.of(),
-                false, Optional.empty(), false);
+                false, Optional.empty(), false, 0);
         if (!filterNode(t, single, 0, row, pushed, false)) return List.of();
         List<NodeValue> out = new ArrayList<>();
         GraphTraversal<Vertex, ?> m = t.elementMap();
