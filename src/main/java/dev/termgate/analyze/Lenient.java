@@ -24,6 +24,8 @@ import java.util.Set;
  * <p>Tiers (scores) — common practice, spaced by {@link Fix#CLEAR_MARGIN} so a better tier is "clearly ahead":
  * same name up to case and separators 1.0; a term whose rdfs:label, skos:prefLabel or IRI local name reads the same 0.9;
  * a skos:altLabel synonym 0.85; edit distance 1: 0.8; edit distance 2: 0.7; a label within edit distance 1: 0.65.
+ * How many edits are allowed depends on the shorter name's length, except that a name one letter short of a term
+ * long enough for one edit is always within reach ({@code nme} → {@code name}).
  */
 final class Lenient {
 
@@ -85,7 +87,7 @@ final class Lenient {
             offer(best, new Match(e.name, e.base, e.why));
         }
         int max = allowed(key.length());
-        if (max > 0) {
+        if (key.length() >= 3) {
             Set<Integer> seen = new HashSet<>();
             for (String d : deletes(key, max)) {
                 for (int id : deletions.getOrDefault(d, List.of())) {
@@ -93,7 +95,9 @@ final class Lenient {
                     Entry e = fuzzy.get(id);
                     if (e.name.equals(written)) continue;
                     int dist = distance(key, e.key);
-                    if (dist == 0 || dist > Math.min(max, allowed(e.key.length()))) continue;
+                    if (dist == 0 || dist > Math.min(max, allowed(e.key.length())) && !droppedLetter(key, e.key, dist)) {
+                        continue;
+                    }
                     double score = e.base - 0.1 * dist;
                     if (e.why.isEmpty()) {
                         offer(best, new Match(e.name, score, dist == 1 ? "one letter apart" : dist + " letters apart"));
@@ -106,6 +110,15 @@ final class Lenient {
         List<Match> out = new ArrayList<>(best.values());
         out.sort(Comparator.comparingDouble(Match::score).reversed().thenComparing(Match::name));
         return out;
+    }
+
+    /**
+     * A written name one letter short of the term ({@code nme} for {@code name}): within reach even when the
+     * written name is too short for fuzzy matching by its own length, since the term's length allows one edit.
+     * The deletion index finds these without any deletion on the written side.
+     */
+    private static boolean droppedLetter(String written, String term, int dist) {
+        return dist == 1 && term.length() == written.length() + 1 && allowed(term.length()) >= 1;
     }
 
     private static void offer(Map<String, Match> best, Match m) {

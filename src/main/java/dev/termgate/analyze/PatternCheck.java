@@ -191,8 +191,9 @@ final class PatternCheck implements Check {
                 }
                 return true;
             }
-            if (dir != Pattern.Direction.BOTH && firstPair(e, from, to, flip(dir)) != null) {
-                wrongDirection(e, describe(e.toNode(), e.to(), to), describe(e.fromNode(), e.from(), from), from, to);
+            SchemaIndex.Pair reverse = dir == Pattern.Direction.BOTH ? null : firstPair(e, from, to, flip(dir));
+            if (reverse != null) {
+                wrongDirection(e, reverse, from, to);
             } else {
                 cx.report(Diagnostic.of(Code.ENDPOINTS_NOT_ALLOWED, e.rel(), plainTypeNames(e),
                         describe(dir == Pattern.Direction.INCOMING ? e.toNode() : e.fromNode(),
@@ -205,7 +206,16 @@ final class PatternCheck implements Check {
             return false;
         }
 
-        private void wrongDirection(Edge e, String start, String end, Cand from, Cand to) {
+        /**
+         * Reports a relationship written against its direction. {@code declared} is the ontology's way round that
+         * the reversed hop matches, when one does: the message names its classes; without one (the whole pattern,
+         * not the hop alone, needs the reversal) the query's own nodes are named.
+         */
+        private void wrongDirection(Edge e, SchemaIndex.Pair declared, Cand from, Cand to) {
+            String start = declared != null && declared.fromName() != null ? Quote.name(declared.fromName())
+                    : describe(e.toNode(), e.to(), to);
+            String end = declared != null && declared.toName() != null ? Quote.name(declared.toName())
+                    : describe(e.fromNode(), e.from(), from);
             Pattern.RelPattern r = e.rel();
             List<Candidate> fixes = new ArrayList<>();
             String arrow = r.direction() == Pattern.Direction.OUTGOING ? "-->" : "<--";
@@ -271,7 +281,7 @@ final class PatternCheck implements Check {
             if (rescuers.size() == 1) {
                 Edge e = rescuers.get(0);
                 Cand from = start.getOrDefault(e.from(), Cand.ANY), to = start.getOrDefault(e.to(), Cand.ANY);
-                wrongDirection(e, describe(e.toNode(), e.to(), to), describe(e.fromNode(), e.from(), from), from, to);
+                wrongDirection(e, firstPair(e, from, to, flip(e.rel().direction())), from, to);
             } else {
                 Edge at = edges.stream().filter(e -> e.from() == emptied || e.to() == emptied).findFirst().orElse(edges.get(0));
                 String what = emptied.anonymous() ? "the unnamed node in this pattern" : "'" + emptied.name + "'";

@@ -25,8 +25,19 @@ import java.util.concurrent.ConcurrentHashMap;
  */
 final class SchemaIndex {
 
-    /** One way a relationship type may connect two classes, and through which ontology statement. */
-    record Pair(Cand from, Cand to, TermUse.Via via) {}
+    /**
+     * One way a relationship type may connect two classes, and through which ontology statement.
+     * {@code fromName} and {@code toName} are the classes the ontology declares (domain and range, read off the
+     * inverse or a super-property as {@code via} says), null for "any class": messages name these, not the
+     * query's labels.
+     */
+    record Pair(Cand from, Cand to, TermUse.Via via, String fromName, String toName) {
+        static final Pair ANY = new Pair(Cand.ANY, Cand.ANY, TermUse.Via.DIRECT, null, null);
+
+        Pair reversed(TermUse.Via how) {
+            return new Pair(to, from, how, toName, fromName);
+        }
+    }
 
     final GraphSchema schema;
     private final Map<String, Cand> labelClasses = new ConcurrentHashMap<>();
@@ -96,7 +107,7 @@ final class SchemaIndex {
 
     private List<Pair> computePairs(String type) {
         RelType r = schema.relTypes().get(type);
-        if (r == null) return List.of(new Pair(Cand.ANY, Cand.ANY, TermUse.Via.DIRECT));
+        if (r == null) return List.of(Pair.ANY);
         List<Pair> out = new ArrayList<>();
         for (Endpoint e : r.endpoints()) out.add(pair(e, false, TermUse.Via.DIRECT));
         r.inverseOf().map(schema.relTypes()::get)
@@ -118,11 +129,11 @@ final class SchemaIndex {
         }
         if (!declared) {
             // No domain or range anywhere above: any class may take part, whatever sub-properties narrow.
-            return List.of(new Pair(Cand.ANY, Cand.ANY, TermUse.Via.DIRECT));
+            return List.of(Pair.ANY);
         }
         if (r.symmetric() || schema.superRelTypes(type).stream().map(schema.relTypes()::get)
                 .anyMatch(s -> s != null && s.symmetric())) {
-            List<Pair> reversed = out.stream().map(p -> new Pair(p.to(), p.from(), TermUse.Via.SYMMETRIC)).toList();
+            List<Pair> reversed = out.stream().map(p -> p.reversed(TermUse.Via.SYMMETRIC)).toList();
             out.addAll(reversed);
         }
         return List.copyOf(out);
@@ -131,7 +142,8 @@ final class SchemaIndex {
     private Pair pair(Endpoint e, boolean reverse, TermUse.Via via) {
         Cand from = e.anyFrom() ? Cand.ANY : classesOfOrAny(e.from());
         Cand to = e.anyTo() ? Cand.ANY : classesOfOrAny(e.to());
-        return reverse ? new Pair(to, from, via) : new Pair(from, to, via);
+        Pair p = new Pair(from, to, via, e.anyFrom() ? null : e.from(), e.anyTo() ? null : e.to());
+        return reverse ? p.reversed(via) : p;
     }
 
     private Cand classesOfOrAny(String label) {

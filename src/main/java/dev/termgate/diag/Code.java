@@ -65,7 +65,7 @@ public enum Code {
     UNKNOWN_RELATIONSHIP_TYPE(3002, Severity.ERROR, "relationship type '%s' is not defined by the ontology"),
     UNKNOWN_PROPERTY(3003, Severity.ERROR, "property key '%s' is not defined by the ontology"),
     PROPERTY_NOT_ON_LABEL(3004, Severity.ERROR, "property '%s' is not defined for %s"),
-    WRONG_DIRECTION(3005, Severity.ERROR, "relationship '%s' goes from %s to %s, not the other way"),
+    WRONG_DIRECTION(3005, Severity.ERROR, "relationship '%s' goes from %s to %s in the ontology, not the other way"),
     ENDPOINTS_NOT_ALLOWED(3006, Severity.ERROR, "relationship '%s' cannot connect %s to %s"),
     UNSATISFIABLE_PATTERN(3007, Severity.ERROR, "no class can satisfy %s; the pattern always returns nothing"),
     LITERAL_TYPE_MISMATCH(3008, Severity.ERROR, "property '%s' holds %s values; compared with %s"),

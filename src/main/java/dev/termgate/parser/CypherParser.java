@@ -16,7 +16,7 @@ import java.util.List;
 
 /**
  * The one entry to the openCypher grammar: text in, a syntax tree or syntax diagnostics out. Stateless and
- * thread-safe (each call makes its own lexer and parser; ANTLR's prediction cache is shared and synchronized).
+ * thread-safe (each thread reuses its own lexer and parser; ANTLR's prediction cache is shared and synchronized).
  * Never throws on bad input: every fault becomes a {@link Diagnostic} in the TG1xxx band.
  *
  * <pre>{@code
@@ -62,17 +62,55 @@ public final class CypherParser {
         }
     }
 
+    /**
+     * One lexer, token stream and parser per thread, pointed at each new text: constructing them (and their
+     * prediction simulators) cost as much as lexing a typical query. ANTLR resets them on a new input.
+     */
+    private static final ThreadLocal<Machinery> MACHINERY = ThreadLocal.withInitial(Machinery::new);
+
+    private static final class Machinery {
+        final CypherLexer lexer = new CypherLexer(CharStreams.fromString(""));
+        final CommonTokenStream tokens = new CommonTokenStream(lexer);
+        final dev.termgate.parser.antlr.CypherParser parser = new dev.termgate.parser.antlr.CypherParser(tokens);
+        final BailErrorStrategy bail = new BailErrorStrategy();
+        /** Set while a parse runs: a re-entrant call on the same thread (none today) gets fresh objects. */
+        boolean busy;
+
+        Machinery() {
+            lexer.removeErrorListeners();
+            parser.removeErrorListeners();
+        }
+
+        void reset(String text) {
+            lexer.setInputStream(CharStreams.fromString(text));
+            tokens.setTokenSource(lexer);
+            parser.setInputStream(tokens);
+            parser.removeErrorListeners();
+        }
+    }
+
     private ParseResult parseChecked(String text, SourceMap map) {
-        CypherLexer lexer = new CypherLexer(CharStreams.fromString(text));
-        lexer.removeErrorListeners();
-        CommonTokenStream tokens = new CommonTokenStream(lexer);
-        dev.termgate.parser.antlr.CypherParser parser = new dev.termgate.parser.antlr.CypherParser(tokens);
-        parser.removeErrorListeners();
+        Machinery m = MACHINERY.get();
+        if (m.busy) m = new Machinery();
+        m.busy = true;
+        try {
+            return parseWith(m, text, map);
+        } finally {
+            m.busy = false;
+            // a long text's tokens and parse tree are not kept alive until the thread's next parse
+            if (text.length() > 10_000) m.reset("");
+        }
+    }
+
+    private ParseResult parseWith(Machinery m, String text, SourceMap map) {
+        m.reset(text);
+        CommonTokenStream tokens = m.tokens;
+        dev.termgate.parser.antlr.CypherParser parser = m.parser;
         StatementContext tree;
         // Two stages: the fast SLL prediction with bail-out, and full LL only when SLL fails (then either the text
         // is wrong, and LL gives the exact error, or SLL was too weak for it).
         parser.getInterpreter().setPredictionMode(PredictionMode.SLL);
-        parser.setErrorHandler(new BailErrorStrategy());
+        parser.setErrorHandler(m.bail);
         try {
             tree = parser.statement();
         } catch (ParseCancellationException sllFailed) {
@@ -86,6 +124,8 @@ public final class CypherParser {
                 tree = parser.statement();
             } catch (ParseCancellationException llFailed) {
                 tree = null;
+            } finally {
+                parser.removeErrorListeners();
             }
             if (!listener.diagnostics.isEmpty()) return ParseResult.failure(text, listener.diagnostics);
             if (tree == null) {

@@ -24,8 +24,11 @@ class DiagnosticTableTest {
         MATCH (v:⟦Vesel⟧) RETURN v                                                      | ship   | TG3001 | label 'Vesel' is not defined by the ontology; did you mean 'Vessel'?
         MATCH (v:Vessel)-[:⟦OPERATED_BYY⟧]->(c:Carrier) RETURN c                         | ship   | TG3002 | relationship type 'OPERATED_BYY' is not defined by the ontology; did you mean 'OPERATED_BY'?
         MATCH (v:Vessel) RETURN ⟦v.imo_number⟧                                          | ship   | TG3003 | property key 'imo_number' is not defined by the ontology; did you mean 'imoNumber'?
+        MATCH (v:Vessel) RETURN ⟦v.nme⟧                                                 | ship   | TG3003 | property key 'nme' is not defined by the ontology; did you mean 'name'?
+        MATCH (v:Vessel) RETURN ⟦v.nte⟧                                                 | ship   | TG3003 | property key 'nte' is not defined by the ontology; did you mean 'note'?
         MATCH (p:Port) RETURN ⟦p.imoNumber⟧                                             | ship   | TG3004 | property 'imoNumber' is not defined for 'Port'
-        MATCH (c:Carrier)⟦-[:OPERATED_BY]->⟧(v:Vessel) RETURN v                         | ship   | TG3005 | relationship 'OPERATED_BY' goes from 'Vessel' to 'Carrier', not the other way; did you mean '<--' or 'OPERATES'?
+        MATCH (c:Carrier)⟦-[:OPERATED_BY]->⟧(v:Vessel) RETURN v                         | ship   | TG3005 | relationship 'OPERATED_BY' goes from 'Vessel' to 'Carrier' in the ontology, not the other way; did you mean '<--' or 'OPERATES'?
+        MATCH (c:Carrier)⟦-[:OPERATED_BY]->⟧(t:Tanker) RETURN t                         | ship   | TG3005 | relationship 'OPERATED_BY' goes from 'Vessel' to 'Carrier' in the ontology, not the other way; did you mean '<--' or 'OPERATES'?
         MATCH (v:Vessel)⟦-[:CALLS_AT]->⟧(p:Port) RETURN p                               | ship   | TG3006 | relationship 'CALLS_AT' cannot connect 'Vessel' to 'Port'
         MATCH ⟦(s:Shipment)-[:BOOKED_ON]->(x)-[:CALLS_AT]->(p:Port)⟧ RETURN p          | ship   | TG3007 | no class can satisfy 'x'; the pattern always returns nothing
         MATCH (v:Vessel) WHERE v.grossTonnage > ⟦'5000'⟧ RETURN v                        | ship   | TG3008 | property 'grossTonnage' holds integer values; compared with the string '5000'

@@ -4,6 +4,11 @@ import dev.termgate.analyze.Analysis;
 import dev.termgate.analyze.Analyzer;
 import dev.termgate.diag.Code;
 import dev.termgate.diag.Diagnostic;
+import dev.termgate.engine.Engine;
+import dev.termgate.engine.EngineException;
+import dev.termgate.engine.GraphFiles;
+import dev.termgate.engine.Limits;
+import dev.termgate.engine.Result;
 import dev.termgate.ontology.OntologyLoader;
 import dev.termgate.parser.CypherParser;
 import dev.termgate.parser.ParseResult;
@@ -21,10 +26,12 @@ import dev.termgate.schema.LangString;
 import dev.termgate.schema.Names;
 import dev.termgate.schema.TermInfo;
 import dev.termgate.schema.TermKind;
+import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Locale;
@@ -43,7 +50,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * {@link GraphSchema#allowsProperty}, the term maps), not by the analyzer under test.
  *
  * <p>Required (issue "Ontology-aware analysis"): every fault detected, no correct query with an error, and at
- * least 90% of direction, spelling, case and synonym faults repaired to a tree equal to the original.
+ * least 90% of direction, spelling, case and synonym faults repaired to a query that returns the same rows as the
+ * original on the demo graph (examples/maritime/data.ttl, run by the embedded engine). The ORG and FOAF corpora
+ * have no instance data, so there "the same" is a tree equal to the original, as the issue allows.
  */
 class MutationCorpusTest {
 
@@ -56,12 +65,19 @@ class MutationCorpusTest {
 
     private static final CypherParser PARSER = new CypherParser();
     private static GraphSchema demo, org, foaf;
+    private static Engine demoGraph;
 
     @BeforeAll
     static void load() {
         demo = OntologyLoader.load(List.of(OntologyLoader.DEMO)).schema();
         org = OntologyLoader.load(List.of("src/test/resources/ontologies/org.nq")).schema();
         foaf = OntologyLoader.load(List.of("src/test/resources/ontologies/foaf.nq")).schema();
+        demoGraph = GraphFiles.demo(demo).engine();
+    }
+
+    @AfterAll
+    static void close() throws Exception {
+        if (demoGraph != null) demoGraph.close();
     }
 
     static final List<String> DEMO = List.of(
@@ -124,6 +140,10 @@ class MutationCorpusTest {
         Map<Fault, int[]> stats = new EnumMap<>(Fault.class); // generated, detected, repaired
         List<String> problems = new ArrayList<>();
         List<String> notRepaired = new ArrayList<>();
+        List<String> notSameRows = new ArrayList<>();
+        // demo mutants to repair; repaired to the same rows; whose original returns rows; both
+        int[] demoRows = new int[4];
+        Map<String, List<String>> originalRows = new java.util.HashMap<>();
         int correct = 0;
         for (var corpus : List.of(Map.entry("demo", DEMO), Map.entry("org", ORG), Map.entry("foaf", FOAF))) {
             GraphSchema schema = schemaOf(corpus.getKey());
@@ -145,9 +165,21 @@ class MutationCorpusTest {
                     s[1]++;
                     if (!REPAIRABLE.contains(m.fault())) continue;
                     RepairResult r = Repairer.repair(m.tree(), ma, analyzer);
-                    if (r.tree().isPresent() && Trees.equalIgnoringSpans(r.tree().get(), m.original())) {
-                        s[2]++;
-                    } else {
+                    boolean same = r.tree().isPresent() && Trees.equalIgnoringSpans(r.tree().get(), m.original());
+                    if (same) s[2]++;
+                    if (m.corpus().equals("demo")) {
+                        demoRows[0]++;
+                        List<String> want = originalRows.computeIfAbsent(q, k -> rows(m.original()));
+                        if (!want.isEmpty()) demoRows[2]++;
+                        if (r.tree().isPresent() && r.after().diagnostics().stream().noneMatch(Diagnostic::isError)
+                                && want.equals(rows(r.tree().get()))) {
+                            demoRows[1]++;
+                            if (!want.isEmpty()) demoRows[3]++;
+                        } else {
+                            notSameRows.add(m.fault() + " " + m.description() + " in " + q);
+                        }
+                    }
+                    if (!same) {
                         notRepaired.add(m.fault() + " [" + m.corpus() + "] " + m.description() + " in " + q + " → "
                                 + r.after().diagnostics());
                     }
@@ -168,10 +200,39 @@ class MutationCorpusTest {
             assertTrue(s[0] > 0, "no mutant generated for " + f);
         }
         System.out.printf("  direction/spelling/case/synonym repaired: %d of %d (%.1f%%)%n", rr, rg, 100.0 * rr / rg);
+        System.out.printf("  demo corpus, repaired to a query returning the same rows as the original on the demo graph: "
+                + "%d of %d (%.1f%%); of those whose original returns at least one row: %d of %d%n", demoRows[1],
+                demoRows[0], 100.0 * demoRows[1] / demoRows[0], demoRows[3], demoRows[2]);
         notRepaired.forEach(n -> System.out.println("  not repaired: " + n));
+        notSameRows.forEach(n -> System.out.println("  not the same rows: " + n));
         problems.forEach(p -> System.out.println("  PROBLEM: " + p));
         assertEquals(List.of(), problems);
         assertTrue(rr >= 0.9 * rg, "at least 90% must be repaired, got " + rr + " of " + rg);
+        // Source: the issue's requirement (same rows on the demo graph once the engine exists), at least 90%.
+        assertTrue(demoRows[0] > 0 && demoRows[1] >= 0.9 * demoRows[0],
+                "at least 90% of the demo mutants must return the original's rows after repair, got " + demoRows[1]
+                        + " of " + demoRows[0]);
+        // An empty result matches any other empty result, so the same bar holds where the original returns rows.
+        assertTrue(demoRows[2] > 0 && demoRows[3] >= 0.9 * demoRows[2], "of the demo mutants whose original returns rows, "
+                + demoRows[3] + " of " + demoRows[2] + " return them after repair");
+    }
+
+    /**
+     * The rows a query returns on the demo graph, each printed, in the order returned when the query orders
+     * them and sorted otherwise (a query without ORDER BY may return its rows in any order).
+     */
+    private static List<String> rows(Query q) {
+        Result r;
+        try {
+            r = demoGraph.run(q, demo, Limits.defaults());
+        } catch (EngineException e) {
+            return List.of("failed: " + e.getMessage());
+        }
+        List<String> out = new ArrayList<>();
+        for (List<Object> row : r.rows()) out.add(String.valueOf(row));
+        boolean ordered = !Trees.find(q, Clause.SortItem.class).isEmpty();
+        if (!ordered) out.sort(Comparator.naturalOrder());
+        return out;
     }
 
     static GraphSchema schemaOf(String corpus) {
