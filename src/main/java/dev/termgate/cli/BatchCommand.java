@@ -6,6 +6,7 @@ import dev.termgate.batch.Progress;
 import dev.termgate.batch.QuestionFile;
 import dev.termgate.batch.ResultLog;
 import dev.termgate.translate.Asker;
+import dev.termgate.translate.CardPrefetch;
 import dev.termgate.translate.Pipeline;
 import dev.termgate.translate.TranslationLoop;
 import dev.termgate.translate.Translator;
@@ -34,6 +35,9 @@ import java.util.concurrent.Callable;
                 "3:the model service failed: questions were left without a result (rerun to finish them), or the provider refused the key or the model name",
                 "4:internal error"})
 public final class BatchCommand implements Callable<Integer> {
+
+    /** Cards built ahead per worker: enough to never leave a worker waiting, few enough to keep memory flat (common practice). */
+    static final int PREFETCH_PER_JOB = 4;
 
     @Option(names = "--questions", required = true, paramLabel = "FILE",
             description = "questions: text (one per line), .csv (with a header) or .jsonl")
@@ -89,9 +93,11 @@ public final class BatchCommand implements Callable<Integer> {
                 return Exit.OK;
             }
             Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
-            try {
+            // Cards are built ahead on their own thread while the workers wait for the model.
+            try (CardPrefetch cards = new CardPrefetch(pipeline.cards(), todo.stream().map(BatchQuestion::question).toList(),
+                    PREFETCH_PER_JOB * jobs)) {
                 Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
-                Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts),
+                Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), cards, model.attempts),
                         pipeline.runner());
                 BatchRun.Summary s;
                 try (Progress progress = new Progress(err, System.console() != null, todo.size(), !noProgress)) {
