@@ -43,7 +43,6 @@ final class QuestionCard {
     private final Linking linking;
     private final int budget;
     private final TokenCounter counter;
-    private final Map<String, Integer> lineTokens = new HashMap<>();
 
     /** The card as chosen so far: its scope, the tokens of each body line by key, and their sum. */
     private CardScope current = CardScope.of(Set.of(), Set.of(), Set.of());
@@ -297,7 +296,7 @@ final class QuestionCard {
     }
 
     private int count(String line) {
-        return lineTokens.computeIfAbsent(line, l -> counter.count(l + "\n"));
+        return counter.countLine(line + "\n");
     }
 
     private List<String> lines(CardScope scope, Optional<String> footer) {

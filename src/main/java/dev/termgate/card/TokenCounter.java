@@ -16,8 +16,12 @@ public final class TokenCounter {
 
     private static final Map<TokenEncoding, TokenCounter> LOADED = new EnumMap<>(TokenEncoding.class);
 
+    /** Lines remembered per encoding; beyond this many, lines are counted afresh (bounds memory, common practice). */
+    static final int LINE_MEMO_LIMIT = 200_000;
+
     private final TokenEncoding encoding;
     private final Encoding tokenizer;
+    private final Map<String, Integer> lineMemo = new java.util.concurrent.ConcurrentHashMap<>();
 
     private TokenCounter(TokenEncoding encoding, Encoding tokenizer) {
         this.encoding = encoding;
@@ -49,6 +53,18 @@ public final class TokenCounter {
     /** Tokens of the text read as plain text (special-token markers in it are not treated as special). */
     public int count(String text) {
         return tokenizer.countTokensOrdinary(text);
+    }
+
+    /**
+     * Tokens of one card line, remembered across cards: every question's card is assembled from the same lines
+     * of one schema, so after the first few questions counting costs a lookup.
+     */
+    public int countLine(String line) {
+        Integer known = lineMemo.get(line);
+        if (known != null) return known;
+        int n = count(line);
+        if (lineMemo.size() < LINE_MEMO_LIMIT) lineMemo.put(line, n);
+        return n;
     }
 
     private static EncodingType type(TokenEncoding e) {

@@ -574,8 +574,11 @@ final class StandardLinker implements SchemaLinker {
         return Math.round(d * 1000) / 1000.0;
     }
 
-    private static String fmt(double d) {
-        return String.format(java.util.Locale.ROOT, "%.2f", d);
+    /** Two decimals, as {@code %.2f} would print them (without its cost: it runs for every scored term). */
+    static String fmt(double d) {
+        long c = Math.round(Math.abs(d) * 100);
+        String sign = Math.copySign(1.0, d) < 0 ? "-" : "";
+        return sign + c / 100 + "." + (c % 100 < 10 ? "0" : "") + c % 100;
     }
 
     private static boolean isNaming(String key) {
