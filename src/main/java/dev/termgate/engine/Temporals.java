@@ -151,8 +151,81 @@ final class Temporals {
                 if (args.get(0) == null || args.get(1) == null) return null;
                 return between(op, args.get(0), args.get(1));
             }
+            case "truncate" -> {
+                if (args.size() < 2 || args.size() > 3) throw new IllegalArgumentException("truncate takes a unit, a value and an optional map");
+                if (args.get(0) == null || args.get(1) == null) return null;
+                Object fields = args.size() == 3 ? args.get(2) : null;
+                if (fields != null && !(fields instanceof Map)) throw new IllegalArgumentException("the third argument of truncate must be a map");
+                return truncate(kind, String.valueOf(args.get(0)), args.get(1), fields == null ? Map.of() : (Map<?, ?>) fields);
+            }
             default -> throw EngineException.runtime("unknown function '" + kind + "." + op + "'");
         }
+    }
+
+    /**
+     * {@code date.truncate(unit, value, fields)} and its kin (openCypher temporal functions): the value's local date
+     * and time are cut down to the unit (a date unit also clears the time), then the map sets components below
+     * the unit ({@code day}, {@code dayOfWeek}, {@code nanosecond}…, added to what the cut kept of the second)
+     * and may give the {@code timezone}; the value keeps its own zone otherwise, UTC when it has none.
+     */
+    private static Object truncate(String kind, String unit, Object value, Map<?, ?> raw) {
+        Map<String, Object> m = new java.util.HashMap<>();
+        raw.forEach((k, v) -> m.put(String.valueOf(k).toLowerCase(Locale.ROOT), v));
+        LocalDate date = value instanceof LocalDate d ? d : value instanceof LocalDateTime t ? t.toLocalDate()
+                : value instanceof ZonedDateTime z ? z.toLocalDate() : null;
+        LocalTime time = value instanceof LocalTime t ? t : value instanceof OffsetTime o ? o.toLocalTime()
+                : value instanceof LocalDateTime t ? t.toLocalTime() : value instanceof ZonedDateTime z ? z.toLocalTime() : LocalTime.MIDNIGHT;
+        ZoneId zone = value instanceof ZonedDateTime z ? z.getZone() : value instanceof OffsetTime o ? o.getOffset() : null;
+        if (date == null && (kind.equals("date") || kind.equals("datetime") || kind.equals("localdatetime"))) {
+            throw new IllegalArgumentException("cannot truncate a " + Values.typeName(value) + " to a " + kind);
+        }
+        switch (unit.toLowerCase(Locale.ROOT)) {
+            case "millennium" -> date = LocalDate.of(Math.floorDiv(date(date, unit).getYear(), 1000) * 1000, 1, 1);
+            case "century" -> date = LocalDate.of(Math.floorDiv(date(date, unit).getYear(), 100) * 100, 1, 1);
+            case "decade" -> date = LocalDate.of(Math.floorDiv(date(date, unit).getYear(), 10) * 10, 1, 1);
+            case "year" -> date = LocalDate.of(date(date, unit).getYear(), 1, 1);
+            case "weekyear" -> date = date(date, unit).with(IsoFields.WEEK_OF_WEEK_BASED_YEAR, 1)
+                    .with(java.time.temporal.ChronoField.DAY_OF_WEEK, 1);
+            case "quarter" -> date = date(date, unit).withMonth((date.get(IsoFields.QUARTER_OF_YEAR) - 1) * 3 + 1).withDayOfMonth(1);
+            case "month" -> date = date(date, unit).withDayOfMonth(1);
+            case "week" -> date = date(date, unit).with(java.time.temporal.ChronoField.DAY_OF_WEEK, 1);
+            case "day" -> { }
+            case "hour" -> time = time.truncatedTo(ChronoUnit.HOURS);
+            case "minute" -> time = time.truncatedTo(ChronoUnit.MINUTES);
+            case "second" -> time = time.truncatedTo(ChronoUnit.SECONDS);
+            case "millisecond" -> time = time.truncatedTo(ChronoUnit.MILLIS);
+            case "microsecond" -> time = time.truncatedTo(ChronoUnit.MICROS);
+            default -> throw new IllegalArgumentException("unknown unit '" + unit + "' for truncate");
+        }
+        if (DATE_UNITS.contains(unit.toLowerCase(Locale.ROOT))) time = LocalTime.MIDNIGHT;
+        if (date != null) {
+            if (m.containsKey("year")) date = date.withYear(intOf(m, "year", 0));
+            if (m.containsKey("month")) date = date.withMonth(intOf(m, "month", 0));
+            if (m.containsKey("day")) date = date.withDayOfMonth(intOf(m, "day", 0));
+            if (m.containsKey("dayofweek")) date = date.with(java.time.temporal.ChronoField.DAY_OF_WEEK, intOf(m, "dayofweek", 0));
+        }
+        time = time.withHour(intOf(m, "hour", time.getHour())).withMinute(intOf(m, "minute", time.getMinute()))
+                .withSecond(intOf(m, "second", time.getSecond()));
+        long extra = intOf(m, "millisecond", 0) * 1_000_000L + intOf(m, "microsecond", 0) * 1_000L + intOf(m, "nanosecond", 0);
+        time = time.withNano(Math.toIntExact(time.getNano() + extra));
+        if (m.containsKey("timezone")) zone = zoneOf(m.get("timezone"));
+        ZoneId z = zone == null ? ZoneOffset.UTC : zone;
+        return switch (kind) {
+            case "date" -> date;
+            case "localtime" -> time;
+            case "time" -> OffsetTime.of(time, offsetOf(z, date));
+            case "localdatetime" -> LocalDateTime.of(date, time);
+            case "datetime" -> ZonedDateTime.of(date, time, z);
+            default -> throw new IllegalArgumentException(kind + " has no truncate");
+        };
+    }
+
+    private static final java.util.Set<String> DATE_UNITS =
+            java.util.Set.of("millennium", "century", "decade", "year", "weekyear", "quarter", "month", "week", "day");
+
+    private static LocalDate date(LocalDate d, String unit) {
+        if (d == null) throw new IllegalArgumentException("cannot truncate a time to the " + unit);
+        return d;
     }
 
     private static Object convert(String kind, Object a, ZoneId zone) {
