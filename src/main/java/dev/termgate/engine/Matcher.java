@@ -54,7 +54,8 @@ final class Matcher {
      * back left from the start; a variable-length part is expanded from one end, so it may be reversed instead.
      */
     record PartPlan(List<Pattern.NodePattern> nodes, List<Pattern.RelPattern> rels, List<String> nodeVars,
-                    List<String> relVars, boolean reversed, Optional<String> pathVar, boolean varLength, int start) {}
+                    List<String> relVars, boolean reversed, Optional<String> pathVar, boolean varLength, int start,
+                    Pattern.PathKind kind) {}
 
     // ---------------------------------------------------------------- whole patterns
 
@@ -115,6 +116,8 @@ final class Matcher {
             relVars.add(r.variable().map(Expr.Variable::name).orElse(Row.Names.hidden("r", r.span().startOffset(), i)));
         }
         boolean varLength = rels.stream().anyMatch(r -> r.length().isPresent());
+        // A shortest-path search runs from one end to the other, like a variable-length expansion.
+        varLength |= part.kind() != Pattern.PathKind.PLAIN;
         int best = 0;
         int bestScore = score(nodes.get(0), nodeVars.get(0), row, pushed);
         for (int i = 1; i < nodes.size(); i++) {
@@ -134,7 +137,7 @@ final class Matcher {
             rels.replaceAll(Matcher::flipped);
         }
         return new PartPlan(nodes, rels, nodeVars, relVars, reverse, part.pathVariable().map(Expr.Variable::name), varLength,
-                reverse ? 0 : best);
+                reverse ? 0 : best, part.kind());
     }
 
     /**
@@ -271,7 +274,8 @@ final class Matcher {
             if (row.has(v) && row.get(v) != null && !(row.get(v) instanceof RelValue || row.get(v) instanceof List)) return List.of();
             if (row.has(v) && row.get(v) == null) return List.of();
         }
-        List<Row> raw = plan.varLength() ? expandPart(plan, row, pushed) : traversePart(plan, row, pushed);
+        List<Row> raw = plan.kind() != Pattern.PathKind.PLAIN ? shortestPaths(plan, row, pushed)
+                : plan.varLength() ? expandPart(plan, row, pushed) : traversePart(plan, row, pushed);
         List<Row> out = new ArrayList<>(raw.size());
         for (Row r : raw) {
             if (checkProperties(plan, r)) out.add(r);
@@ -580,7 +584,7 @@ final class Matcher {
         }
         GraphTraversal<Vertex, Vertex> t = port.g().V();
         PartPlan single = new PartPlan(plan.nodes().subList(0, 1), List.of(), plan.nodeVars().subList(0, 1), List.of(),
-                false, Optional.empty(), false, 0);
+                false, Optional.empty(), false, 0, Pattern.PathKind.PLAIN);
         if (!filterNode(t, single, 0, row, pushed, false)) return List.of();
         List<NodeValue> out = new ArrayList<>();
         GraphTraversal<Vertex, ?> m = t.elementMap();
@@ -696,6 +700,94 @@ final class Matcher {
             closeQuietly(sel);
         }
         if (hopCache.size() < 100_000) hopCache.put(key, out);
+        return out;
+    }
+
+    // ---------------------------------------------------------------- shortestPath / allShortestPaths
+
+    /**
+     * {@code shortestPath((a)-[*]-(b))}: for each start and each end node the pattern allows, one path of the
+     * fewest relationships ({@code allShortestPaths}: every such path). A breadth-first search from each start,
+     * hop by hop with the same lambda-free hop traversals as variable-length expansion, so the search stops at
+     * the first level that reaches a bound end. The relationship's type, direction and properties restrict the
+     * search itself; conditions of WHERE are applied to the paths found (as for any MATCH).
+     */
+    private List<Row> shortestPaths(PartPlan plan, Row row, List<Pushdown> pushed) {
+        if (plan.rels().size() != 1) {
+            throw EngineException.runtime("shortestPath and allShortestPaths need a pattern of exactly one relationship");
+        }
+        Pattern.RelPattern rel = plan.rels().get(0);
+        long min = rel.length().flatMap(Pattern.Length::min).orElse(1L);
+        long max = rel.length().isEmpty() ? 1 : rel.length().get().max().orElse(Long.MAX_VALUE);
+        if (min > 1) throw EngineException.runtime("shortestPath and allShortestPaths take a minimum length of 0 or 1");
+        boolean all = plan.kind() == Pattern.PathKind.ALL_SHORTEST;
+        Pattern.NodePattern target = plan.nodes().get(1);
+        String targetVar = plan.nodeVars().get(1);
+        List<Row> out = new ArrayList<>();
+        for (NodeValue start : startNodes(plan, row, pushed)) {
+            control.check();
+            Map<Object, NodeValue> nodes = new HashMap<>();
+            Map<Object, List<Object[]>> via = new HashMap<>(); // node key -> (relationship, previous node key)
+            Object startKey = Values.idKey(start.id());
+            nodes.put(startKey, start);
+            via.put(startKey, List.of());
+            List<Object> level = List.of(startKey);
+            boolean endBound = row.has(targetVar);
+            for (long depth = 0; !level.isEmpty(); depth++) {
+                boolean reached = false;
+                if (depth >= min) {
+                    for (Object k : level) {
+                        NodeValue end = nodes.get(k);
+                        if (!nodeOk(target, targetVar, end, row)) continue;
+                        reached = true;
+                        for (List<RelValue> segment : chains(k, via, all)) {
+                            Row b = bind(plan, row, List.of(start, end), List.of(
+                                    rel.length().isEmpty() ? segment.get(0) : Collections.unmodifiableList(segment)));
+                            if (b != null) out.add(b);
+                            control.checkSize(out.size());
+                        }
+                    }
+                }
+                if (depth >= max || (reached && endBound)) break;
+                level = nextLevel(level, nodes, via, rel, row);
+            }
+        }
+        return out;
+    }
+
+    /** The nodes first reached one hop further, recording every shortest way to each of them. */
+    private List<Object> nextLevel(List<Object> level, Map<Object, NodeValue> nodes, Map<Object, List<Object[]>> via,
+                                   Pattern.RelPattern rel, Row row) {
+        Map<Object, List<Object[]>> found = new LinkedHashMap<>();
+        for (Object k : level) {
+            for (Object[] hop : hops(nodes.get(k), rel)) {
+                control.check();
+                RelValue r = (RelValue) hop[0];
+                NodeValue next = (NodeValue) hop[1];
+                Object nk = Values.idKey(next.id());
+                if (via.containsKey(nk)) continue;
+                if (rel.properties().isPresent() && !propsMatch(rel.properties().get(), r, row)) continue;
+                nodes.putIfAbsent(nk, next);
+                found.computeIfAbsent(nk, x -> new ArrayList<>()).add(new Object[] {r, k});
+            }
+        }
+        via.putAll(found);
+        return new ArrayList<>(found.keySet());
+    }
+
+    /** The relationship sequences of the shortest ways from the start to {@code key}: one, or all of them. */
+    private List<List<RelValue>> chains(Object key, Map<Object, List<Object[]>> via, boolean all) {
+        List<Object[]> ways = via.get(key);
+        if (ways.isEmpty()) return List.of(new ArrayList<>());
+        List<List<RelValue>> out = new ArrayList<>();
+        for (Object[] way : all ? ways : ways.subList(0, 1)) {
+            for (List<RelValue> prefix : chains(way[1], via, all)) {
+                control.check();
+                List<RelValue> chain = new ArrayList<>(prefix);
+                chain.add((RelValue) way[0]);
+                out.add(chain);
+            }
+        }
         return out;
     }
 

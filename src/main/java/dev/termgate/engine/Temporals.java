@@ -137,7 +137,9 @@ final class Temporals {
     private static Object special(String kind, String op, java.util.List<Object> args) {
         switch (op) {
             case "statement", "transaction", "realtime" -> {
-                return args.isEmpty() ? now(kind) : convert(kind, ZonedDateTime.now(ZoneId.of(String.valueOf(args.get(0)))), null);
+                if (args.isEmpty()) return now(kind);
+                if (args.get(0) == null) return null;
+                return convert(kind, ZonedDateTime.now(zoneOf(args.get(0))), null);
             }
             case "fromepoch" -> {
                 long s = ((Number) args.get(0)).longValue();
