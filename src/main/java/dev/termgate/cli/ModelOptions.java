@@ -44,9 +44,12 @@ public final class ModelOptions {
         if (retries < 0 || retries > 20) throw new UserError(Exit.USAGE, "--retries must be between 0 and 20");
         if (modelTimeout != null && !(modelTimeout > 0)) throw new UserError(Exit.USAGE, "--model-timeout must be positive");
         try {
-            return ModelSettings.resolve(Optional.ofNullable(model), Optional.ofNullable(baseUrl),
-                    Optional.ofNullable(modelTimeout).map(s -> Duration.ofMillis(Math.round(s * 1000))),
+            ModelSettings s = ModelSettings.resolve(Optional.ofNullable(model), Optional.ofNullable(baseUrl),
+                    Optional.ofNullable(modelTimeout).map(t -> Duration.ofMillis(Math.round(t * 1000))),
                     env, Optional.of(ModelSettings.defaultConfigFile(env))).withRetries(retries);
+            // Told now, before the ontology and the graph are loaded for nothing.
+            s.problem().ifPresent(p -> { throw new UserError(Exit.USAGE, p); });
+            return s;
         } catch (IllegalArgumentException e) {
             throw new UserError(Exit.USAGE, e.getMessage());
         }

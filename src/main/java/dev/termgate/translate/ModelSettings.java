@@ -63,6 +63,15 @@ public record ModelSettings(ModelSpec spec, String baseUrl, Optional<Secret> api
     }
 
     /** True when the base URL points at this machine, where servers commonly need no key. */
+    /** Why these settings cannot reach the model, found before anything costly is loaded; empty when they can. */
+    public Optional<String> problem() {
+        if (spec.provider() == ModelSpec.Provider.OPENAI && apiKey.isEmpty() && !local()) {
+            return Optional.of("the openai provider needs an API key for " + baseUrl
+                    + ": set TERMGATE_API_KEY (or OPENAI_API_KEY) or api-key in the config file");
+        }
+        return Optional.empty();
+    }
+
     public boolean local() {
         try {
             String host = java.net.URI.create(baseUrl).getHost();

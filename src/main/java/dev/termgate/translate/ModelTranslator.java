@@ -53,10 +53,7 @@ public final class ModelTranslator implements Translator {
         String modelName = s.spec().model();
         return switch (s.spec().provider()) {
             case OPENAI -> {
-                if (s.apiKey().isEmpty() && !s.local()) {
-                    throw new IllegalArgumentException("the openai provider needs an API key for " + s.baseUrl()
-                            + ": set TERMGATE_API_KEY (or OPENAI_API_KEY) or api-key in the config file");
-                }
+                if (s.problem().isPresent()) throw new IllegalArgumentException(s.problem().get());
                 yield OpenAiChatModel.builder()
                         .httpClientBuilder(ModelHttpClient.builder(s.timeout(), s.apiKey(), modelName))
                         .baseUrl(s.baseUrl())

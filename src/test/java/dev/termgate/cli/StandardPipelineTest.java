@@ -63,6 +63,16 @@ class StandardPipelineTest {
         }
     }
 
+    @Test
+    void aMissingApiKeyIsToldBeforeTheGraphIsLoaded() {
+        CliRun.Result r = CliRun.run(new AskCommand(), CliRun.withEnv(CliRun.env()), "--model", "openai:some-model",
+                "--base-url", "https://models.example.invalid/v1", "List all ports.");
+        assertEquals(Exit.USAGE, r.code(), r.all());
+        assertTrue(r.err().contains("needs an API key"), r.err());
+        // The demo graph's load reports TG6008 for its one deliberately unknown property; nothing was loaded.
+        assertTrue(!r.err().contains("TG6008"), r.err());
+    }
+
     private static int cardTokens(String json) {
         return com.google.gson.JsonParser.parseString(json).getAsJsonObject().get("card_tokens").getAsInt();
     }
