@@ -73,6 +73,7 @@ public final class CypherParser {
         final CommonTokenStream tokens = new CommonTokenStream(lexer);
         final dev.termgate.parser.antlr.CypherParser parser = new dev.termgate.parser.antlr.CypherParser(tokens);
         final BailErrorStrategy bail = new BailErrorStrategy();
+        final FastLexer fast = new FastLexer();
         /** Set while a parse runs: a re-entrant call on the same thread (none today) gets fresh objects. */
         boolean busy;
 
@@ -81,11 +82,18 @@ public final class CypherParser {
             parser.removeErrorListeners();
         }
 
-        void reset(String text) {
-            lexer.setInputStream(CharStreams.fromString(text));
-            tokens.setTokenSource(lexer);
+        /** Points the parser at the text: through the fast scanner when it takes the text and {@code fastOk}. */
+        boolean reset(String text, boolean fastOk) {
+            boolean viaFast = fastOk && fast.tokenize(text);
+            if (viaFast) {
+                tokens.setTokenSource(fast);
+            } else {
+                lexer.setInputStream(CharStreams.fromString(text));
+                tokens.setTokenSource(lexer);
+            }
             parser.setInputStream(tokens);
             parser.removeErrorListeners();
+            return viaFast;
         }
     }
 
@@ -98,12 +106,12 @@ public final class CypherParser {
         } finally {
             m.busy = false;
             // a long text's tokens and parse tree are not kept alive until the thread's next parse
-            if (text.length() > 10_000) m.reset("");
+            if (text.length() > 10_000) m.reset("", false);
         }
     }
 
     private ParseResult parseWith(Machinery m, String text, SourceMap map) {
-        m.reset(text);
+        boolean viaFast = m.reset(text, true);
         CommonTokenStream tokens = m.tokens;
         dev.termgate.parser.antlr.CypherParser parser = m.parser;
         StatementContext tree;
@@ -114,8 +122,13 @@ public final class CypherParser {
         try {
             tree = parser.statement();
         } catch (ParseCancellationException sllFailed) {
-            tokens.seek(0);
-            parser.reset();
+            if (viaFast) {
+                // error messages (and LL's second look) always come from the grammar's own lexer
+                m.reset(text, false);
+            } else {
+                tokens.seek(0);
+                parser.reset();
+            }
             parser.getInterpreter().setPredictionMode(PredictionMode.LL);
             parser.setErrorHandler(new SyntaxErrors.Strategy());
             SyntaxErrors.Listener listener = new SyntaxErrors.Listener(map);

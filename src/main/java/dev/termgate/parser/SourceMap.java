@@ -66,7 +66,9 @@ final class SourceMap {
     /** The span between two UTF-16 offsets (end exclusive). */
     Span span(int start, int end) {
         if (end < start) end = start;
-        return new Span(start, end, line(start), column(start), line(end), column(end));
+        if (lineCount == 1) return new Span(start, end, 1, start + 1, 1, end + 1); // the usual one-line query
+        int l1 = line(start), l2 = line(end);
+        return new Span(start, end, l1, start - lineStarts[l1 - 1] + 1, l2, end - lineStarts[l2 - 1] + 1);
     }
 
     /** The span of code points {@code [startCp, endCpExclusive)}. */

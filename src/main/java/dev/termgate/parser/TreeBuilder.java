@@ -894,7 +894,7 @@ final class TreeBuilder extends CypherBaseVisitor<Object> {
 
     private String schemaName(SchemaNameContext ctx) {
         if (ctx instanceof SymbolicSchemaNameContext s) return name(s.symbolicName());
-        return ctx.getText();
+        return text(ctx);
     }
 
     private String name(SymbolicNameContext ctx) {
@@ -902,6 +902,13 @@ final class TreeBuilder extends CypherBaseVisitor<Object> {
             String raw = e.EscapedName().getText();
             return raw.substring(1, raw.length() - 1).replace("``", "`");
         }
+        return text(ctx);
+    }
+
+    /** The text of a rule; for the usual one-token rule that token's text, without the generic concatenation. */
+    private static String text(ParserRuleContext ctx) {
+        Token start = ctx.getStart();
+        if (start != null && start == ctx.getStop() && start.getType() != Token.EOF) return start.getText();
         return ctx.getText();
     }
 }
