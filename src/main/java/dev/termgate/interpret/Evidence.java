@@ -1,5 +1,7 @@
 package dev.termgate.interpret;
 
+import dev.termgate.link.ValueIndex;
+import dev.termgate.link.ValueMention;
 import dev.termgate.schema.TermKind;
 
 import java.util.ArrayList;
@@ -29,9 +31,17 @@ final class Evidence {
         this.quantities = quantities;
     }
 
-    static Evidence of(String question, Lexicon lexicon, ValueFinder finder) {
+    static Evidence of(String question, Lexicon lexicon, ValueFinder finder, ValueIndex names) {
         List<Words.Tok> toks = Words.tokens(question);
-        List<ValueFinder.Hit> values = finder.find(toks);
+        List<ValueFinder.Hit> values = new ArrayList<>(onTokens(names.find(question), toks));
+        boolean[] named = new boolean[toks.size()];
+        for (ValueFinder.Hit h : values) for (int i = h.from(); i < h.to(); i++) named[i] = true;
+        for (ValueFinder.Hit h : finder.find(toks)) {
+            boolean free = true;
+            for (int i = h.from(); i < h.to(); i++) free &= !named[i];
+            if (free) values.add(h);
+        }
+        values.sort(Comparator.comparingInt(ValueFinder.Hit::from));
         boolean[] taken = new boolean[toks.size()];
         for (ValueFinder.Hit h : values) for (int i = h.from(); i < h.to(); i++) taken[i] = true;
         List<Quantities.Quantity> qs = Quantities.find(toks);
@@ -65,6 +75,23 @@ final class Evidence {
         }
         chosen.sort(Comparator.comparingInt(TermHit::from));
         return new Evidence(toks, values, chosen, qs);
+    }
+
+    /** Value mentions (character offsets) placed on the question's tokens; one that splits a token is dropped. */
+    private static List<ValueFinder.Hit> onTokens(List<ValueMention> mentions, List<Words.Tok> toks) {
+        List<ValueFinder.Hit> out = new ArrayList<>();
+        for (ValueMention m : mentions) {
+            if (m.property().isEmpty()) continue;
+            int from = -1;
+            int to = -1;
+            for (Words.Tok t : toks) {
+                if (t.start() == m.start()) from = t.index();
+                if (t.end() == m.end()) to = t.index() + 1;
+            }
+            if (from < 0 || to <= from) continue;
+            out.add(new ValueFinder.Hit(new DataProfile.Value(m.value(), m.label(), m.property().get(), false), from, to));
+        }
+        return out;
     }
 
     private static double matchAt(List<Words.Tok> toks, boolean[] taken, int i, Lexicon.Phrase p) {

@@ -1,5 +1,7 @@
 package dev.termgate.interpret;
 
+import dev.termgate.link.InMemoryValueIndex;
+import dev.termgate.link.ValueIndex;
 import dev.termgate.schema.GraphSchema;
 import dev.termgate.schema.PropertyKey;
 import dev.termgate.schema.TermKind;
@@ -35,15 +37,26 @@ public final class Interpreter {
     private final GraphSchema schema;
     private final DataProfile profile;
     private final Lexicon lexicon;
+    /** Code-list values ("import", "scan"), matched in any case and number. */
     private final ValueFinder values;
+    /** Names and codes of instances: the schema-linking value index. */
+    private final ValueIndex names;
     private final SchemaGraph graph;
 
     private Interpreter(GraphSchema schema, DataProfile profile) {
         this.schema = schema;
         this.profile = profile;
         this.lexicon = Lexicon.of(schema);
-        this.values = new ValueFinder(profile.values());
+        this.values = new ValueFinder(profile.values().stream().filter(DataProfile.Value::categorical).toList());
+        this.names = nameIndex(profile);
         this.graph = new SchemaGraph(schema, profile);
+    }
+
+    /** The schema-linking value index over the profile's names and codes (code lists are matched apart). */
+    static ValueIndex nameIndex(DataProfile profile) {
+        InMemoryValueIndex.Builder b = ValueIndex.builder();
+        for (DataProfile.Value v : profile.values()) if (!v.categorical()) b.add(v.value(), v.label(), v.key());
+        return b.build();
     }
 
     public static Interpreter create(GraphSchema schema, DataProfile profile) {
@@ -118,7 +131,21 @@ public final class Interpreter {
         }
     }
 
-    private record PEdge(QNode a, String type, QNode b, boolean symmetric) {}
+    /** One relationship of the tree; {@code hops} is a variable length such as {@code *1..2}, or empty. */
+    private record PEdge(QNode a, String type, QNode b, boolean symmetric, String hops) {
+        PEdge(QNode a, String type, QNode b, boolean symmetric) {
+            this(a, type, b, symmetric, "");
+        }
+    }
+
+    /**
+     * A reading of "after …" along a relationship the ontology declares from a class to itself and labels as
+     * succession ("next port call", "followed by"): the answer's event follows the named one by {@code hops}.
+     */
+    private record Succession(String type, int cueAt, String hops, Quantities.Quantity count) {}
+
+    /** Words of a self-relationship's labels that say it leads to the following one (common practice). */
+    private static final Set<String> SUCCESSION_WORDS = Set.of("next", "follow", "followed", "following", "successor", "subsequent");
 
     /** One question's interpretation; the fields are the working state. */
     private final class Run {
@@ -127,6 +154,7 @@ public final class Interpreter {
         final List<QNode> nodes = new ArrayList<>();
         final List<PEdge> edges = new ArrayList<>();
         final List<PEdge> negEdges = new ArrayList<>();
+        Succession succession;
         /** Node ids the question's grammar joins directly (see {@link #linkEvents}). */
         final Map<Integer, Set<Integer>> links = new HashMap<>();
         /** The classes of the question's own nodes: a path joining grammatical partners does not pass through them. */
@@ -142,7 +170,7 @@ public final class Interpreter {
         }
 
         Interpretation interpret() {
-            ev = Evidence.of(question, lexicon, values);
+            ev = Evidence.of(question, lexicon, values, names);
             for (Evidence.TermHit h : ev.terms) {
                 why.add(h.kind().name().toLowerCase(Locale.ROOT) + " " + h.name() + " ← \"" + span(h.from(), h.to()) + "\""
                         + String.format(Locale.ROOT, " (%.2f)", h.score()));
@@ -161,6 +189,7 @@ public final class Interpreter {
                 return Interpretation.declined(String.format(Locale.ROOT,
                         "only %.0f%% of the question's words match the ontology", coverage * 100), coverage, why);
             }
+            succession = succession();
             Shape shape = shape(focus, negAt);
             if (shape.error != null) return Interpretation.declined(shape.error, coverage * 0.5, why);
             String unreached = connect(focus);
@@ -168,10 +197,73 @@ public final class Interpreter {
                 return Interpretation.declined("nothing in the ontology connects " + focus.label + " to " + unreached,
                         coverage * 0.5, why);
             }
+            if (succession != null) follow(focus);
             String query = write(focus, shape);
             double confidence = coverage / (1 + 0.1 * Math.max(0, pathCost - edges.size() - negEdges.size()));
             why.add("tree: " + edges.size() + " relationship(s), cost " + String.format(Locale.ROOT, "%.2f", pathCost));
             return new Interpretation(Optional.of(query), shape.kind, Math.min(1, confidence), Optional.empty(), why);
+        }
+
+        /**
+         * "After X", "following X": a self-relationship of succession, and how far: "within two calls" reads as
+         * one to two steps, "all the way" as any number, otherwise one step ("right after", "next").
+         */
+        Succession succession() {
+            int cue = -1;
+            for (Words.Tok t : ev.toks) {
+                if (t.lower().equals("after") || t.lower().startsWith("follow")) {
+                    cue = t.index();
+                    break;
+                }
+            }
+            if (cue < 0) return null;
+            String type = null;
+            for (var r : schema.relTypes().values()) {
+                List<List<String>> ends = ends(new Evidence.TermHit(TermKind.RELATIONSHIP, r.name(), 0, 0, 0, false));
+                // Succession has a direction: a symmetric self-relationship ("next to") is adjacency instead.
+                if (r.symmetric() || ends.get(0).size() != 1 || !ends.get(0).equals(ends.get(1))) continue;
+                Set<String> words = new HashSet<>(Words.stems(String.join(" ", dev.termgate.schema.Names.words(r.name()))));
+                r.info().labels().forEach(l -> words.addAll(Words.tokens(l.text()).stream().map(Words.Tok::lower).toList()));
+                r.info().altLabels().forEach(l -> words.addAll(Words.tokens(l.text()).stream().map(Words.Tok::lower).toList()));
+                if (words.stream().anyMatch(SUCCESSION_WORDS::contains)) {
+                    type = r.name();
+                    break;
+                }
+            }
+            if (type == null) return null;
+            int within = ev.indexOf("within");
+            for (Quantities.Quantity q : ev.quantities) {
+                if (within >= 0 && q.from() == within + 1 && !q.period() && q.value() >= 1) {
+                    return new Succession(type, cue, "*1.." + (int) q.value(), q);
+                }
+            }
+            boolean open = ev.indexOfPhrase("all", "the", "way") >= 0 || ev.indexOfPhrase("to", "the", "end") >= 0;
+            return new Succession(type, cue, open ? "*" : "", null);
+        }
+
+        /**
+         * Splits the event node between the answer and the thing named after the cue into two events, the
+         * answer's following the named one along the succession relationship.
+         */
+        void follow(QNode focus) {
+            String domain = ends(new Evidence.TermHit(TermKind.RELATIONSHIP, succession.type(), 0, 0, 0, false)).get(0).get(0);
+            for (QNode anchor : nodes) {
+                if (anchor == focus || anchor.negated || anchor.pos <= succession.cueAt()) continue;
+                List<QNode> path = treePath(edges, focus, anchor);
+                if (path == null) continue;
+                for (int i = 1; i < path.size() - 1; i++) {
+                    QNode e = path.get(i);
+                    if (!schema.isSubLabel(e.label, domain)) continue;
+                    QNode toward = path.get(i - 1);
+                    QNode next = new QNode(nextId++, e.label, -1, false);
+                    edges.replaceAll(x -> x.a() == e && x.b() == toward ? new PEdge(next, x.type(), toward, x.symmetric(), x.hops())
+                            : x.b() == e && x.a() == toward ? new PEdge(toward, x.type(), next, x.symmetric(), x.hops()) : x);
+                    edges.add(new PEdge(e, succession.type(), next, false, succession.hops()));
+                    why.add("\"" + ev.toks.get(succession.cueAt()).raw() + "\": the answer's " + e.label + " follows by "
+                            + succession.type() + succession.hops());
+                    return;
+                }
+            }
         }
 
         String span(int from, int to) {
@@ -479,6 +571,7 @@ public final class Interpreter {
             }
             Set<Evidence.TermHit> usedProps = new HashSet<>();
             for (Quantities.Quantity q : ev.quantities) {
+                if (succession != null && q == succession.count()) continue;
                 Evidence.TermHit prop = propertyFor(q, focus);
                 String key = prop != null ? prop.name() : fallbackProperty(q, focus);
                 if (key == null) {
@@ -1150,8 +1243,8 @@ public final class Interpreter {
                 QNode reused = inOrder ? passedThrough(tree, todo.get(0)) : null;
                 if (reused != null) {
                     QNode t = todo.remove(0);
-                    out.replaceAll(e -> e.a() == reused ? new PEdge(t, e.type(), e.b(), e.symmetric())
-                            : e.b() == reused ? new PEdge(e.a(), e.type(), t, e.symmetric()) : e);
+                    out.replaceAll(e -> e.a() == reused ? new PEdge(t, e.type(), e.b(), e.symmetric(), e.hops())
+                            : e.b() == reused ? new PEdge(e.a(), e.type(), t, e.symmetric(), e.hops()) : e);
                     tree.set(tree.indexOf(reused), t);
                     continue;
                 }
@@ -1296,8 +1389,8 @@ public final class Interpreter {
         String edgeText(PEdge e, Set<QNode> declared) {
             String a = nodeText(e.a(), declared);
             String b = nodeText(e.b(), declared);
-            if (e.symmetric()) return a + "-[:" + e.type() + "]-" + b;
-            return a + "-[:" + e.type() + "]->" + b;
+            if (e.symmetric()) return a + "-[:" + e.type() + e.hops() + "]-" + b;
+            return a + "-[:" + e.type() + e.hops() + "]->" + b;
         }
 
         String nodeText(QNode n, Set<QNode> declared) {

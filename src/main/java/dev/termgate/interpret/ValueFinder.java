@@ -6,51 +6,45 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * Finds instance values in a question: names and codes on whole words (a one-word name made only of letters
- * must be capitalised in the question, so that the common word "atlas" is not taken for a company called
- * Atlas), and values of code lists ("import", "scan") in any case and number.
+ * Finds values of code lists ("import", "scan") in a question, in any case and number: they are ordinary words,
+ * so they are matched on stems. Names and codes of instances are found by the schema-linking value index
+ * ({@link dev.termgate.link.ValueIndex}) instead, on whole words as typed.
  */
 final class ValueFinder {
 
     /** A mention of a value over question tokens {@code [from, to)}. */
     record Hit(DataProfile.Value value, int from, int to) {}
 
-    private record Entry(DataProfile.Value value, List<String> keys) {}
+    private record Entry(DataProfile.Value value, List<String> stems) {}
 
     private final Map<String, List<Entry>> byFirst = new HashMap<>();
 
-    ValueFinder(List<DataProfile.Value> values) {
-        for (DataProfile.Value v : values) {
+    /** @param codes values of code lists only */
+    ValueFinder(List<DataProfile.Value> codes) {
+        for (DataProfile.Value v : codes) {
             List<Words.Tok> toks = Words.tokens(v.value());
-            if (toks.isEmpty()) continue;
-            List<String> keys = toks.stream().map(t -> key(t, v.categorical())).toList();
             // A value made only of stop words ("The") would match almost any question.
-            if (toks.stream().allMatch(Words::isStop)) continue;
-            byFirst.computeIfAbsent(keys.get(0), k -> new ArrayList<>()).add(new Entry(v, keys));
+            if (toks.isEmpty() || toks.stream().allMatch(Words::isStop)) continue;
+            List<String> stems = toks.stream().map(Words.Tok::stem).toList();
+            byFirst.computeIfAbsent(stems.get(0), k -> new ArrayList<>()).add(new Entry(v, stems));
         }
     }
 
-    private static String key(Words.Tok t, boolean categorical) {
-        return categorical ? t.stem() : t.lower();
-    }
-
+    /** The longest value at each place, every value of that length; left to right, not overlapping. */
     List<Hit> find(List<Words.Tok> q) {
         List<Hit> out = new ArrayList<>();
         int i = 0;
         while (i < q.size()) {
             int longest = 0;
             List<Entry> best = new ArrayList<>();
-            for (boolean categorical : new boolean[] {false, true}) {
-                for (Entry e : byFirst.getOrDefault(key(q.get(i), categorical), List.of())) {
-                    if (e.value().categorical() != categorical) continue;
-                    int k = e.keys().size();
-                    if (k < longest || !matches(q, i, e)) continue;
-                    if (k > longest) {
-                        longest = k;
-                        best.clear();
-                    }
-                    best.add(e);
+            for (Entry e : byFirst.getOrDefault(q.get(i).stem(), List.of())) {
+                int k = e.stems().size();
+                if (k < longest || !matches(q, i, e)) continue;
+                if (k > longest) {
+                    longest = k;
+                    best.clear();
                 }
+                best.add(e);
             }
             if (longest == 0) {
                 i++;
@@ -63,17 +57,9 @@ final class ValueFinder {
     }
 
     private static boolean matches(List<Words.Tok> q, int i, Entry e) {
-        int k = e.keys().size();
+        int k = e.stems().size();
         if (i + k > q.size()) return false;
-        boolean cat = e.value().categorical();
-        for (int j = 0; j < k; j++) {
-            if (!key(q.get(i + j), cat).equals(e.keys().get(j))) return false;
-        }
-        if (!cat && k == 1) {
-            String v = e.value().value();
-            boolean letters = v.chars().allMatch(Character::isLetter);
-            return !letters || Character.isUpperCase(q.get(i).raw().charAt(0)) && (i > 0 || !Words.isStop(q.get(i)));
-        }
+        for (int j = 0; j < k; j++) if (!q.get(i + j).stem().equals(e.stems().get(j))) return false;
         return true;
     }
 }

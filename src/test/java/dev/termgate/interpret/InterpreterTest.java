@@ -74,6 +74,53 @@ class InterpreterTest {
                 q("Which declarations were lodged without a customs broker?"));
     }
 
+    // The tests below use wordings of our own, in none of the demo question set's questions, to show that the
+    // mechanisms are not fitted to the set's wording.
+
+    @Test
+    void aVerbJoinsItsSubjectAndObjectThroughTheEventItNames() {
+        // "vessels called at Ostwick": the call joins the vessels (through their voyages) and the port; the
+        // shorter home-port path from vessel to port would be another question.
+        String query = q("Which carriers' vessels called at Ostwick in 2023?");
+        assertTrue(query.startsWith("MATCH (v:Vessel)-[:OPERATED_BY]->(c:Carrier), (v2:Voyage)-[:PERFORMED_BY]->(v), "
+                + "(v2)-[:HAS_PORT_CALL]->(p2:PortCall), (p2)-[:AT_PORT]->(p:Port)"), query);
+        assertTrue(query.endsWith("RETURN DISTINCT c.name"), "the possessor is the answer; the dates are not asked: " + query);
+        assertFalse(query.contains("HOME_PORT"), query);
+    }
+
+    @Test
+    void aNegatedVerbKeepsItsAgentOnTheEvent() {
+        assertEquals("MATCH (p:Port) WHERE NOT EXISTS { MATCH (p2:PortCall)-[:AT_PORT]->(p), (v:Voyage)-[:HAS_PORT_CALL]->(p2),"
+                + " (v)-[:PERFORMED_BY]->(c:ContainerShip) } RETURN p.name", q("Which harbours have never been visited by a container ship?"));
+    }
+
+    @Test
+    void afterReadsAlongTheOntologysSuccessionRelationship() {
+        String query = q("Which port comes after Port Kellhaven on voyage HLVB2301S?");
+        assertTrue(query.contains("(p4)-[:AT_PORT]->(p2:Port), (p4)-[:NEXT_PORT_CALL]->(p3)"), query);
+        assertTrue(query.contains("(p3:PortCall)-[:AT_PORT]->(p:Port)"), query);
+        // adjacentTo is labelled "next to" but is symmetric: adjacency, not succession.
+        assertFalse(query.contains("ADJACENT_TO"), query);
+    }
+
+    @Test
+    void inOrderSortsByThePositionTheWordOrderNames() {
+        assertTrue(q("Which ports did voyage HLVB2301S call at, in order?").endsWith(
+                "RETURN DISTINCT p.name, p2.sequenceNumber ORDER BY p2.sequenceNumber"));
+    }
+
+    @Test
+    void membersBesideTheirCount() {
+        assertEquals("MATCH (b:Berth)-[:PART_OF_TERMINAL]->(t:Terminal) RETURN t.name, count(DISTINCT b) AS count,"
+                + " collect(DISTINCT b.berthNumber) AS members ORDER BY count DESC", q("How many berths does each terminal have, and which are they?"));
+    }
+
+    @Test
+    void aListWithOneAskedAmountIsOrderedByIt() {
+        assertEquals("MATCH (b:BulkCarrier) RETURN b.name, b.grossTonnage ORDER BY b.grossTonnage DESC",
+                q("List the bulk carriers with their gross tonnage."));
+    }
+
     @Test
     void declinesWhatTheOntologyDoesNotCover() {
         for (String question : List.of("What will the weather be like tomorrow?", "Tell me a joke.", "", "42")) {
