@@ -108,7 +108,7 @@ final class Evidence {
             // the class's noun does ("containerised"), and so may a verb its head noun comes from ("visited").
             if (p.kind() == TermKind.LABEL && t.lower().endsWith("ed") && !p.raws().get(j).endsWith("ed")
                     && !t.lower().endsWith("ised") && !t.lower().endsWith("ized")
-                    && !(p.partial() && (t.lower().equals(p.raws().get(j) + "ed") || t.lower().equals(p.raws().get(j) + "d")))) return 0;
+                    && !((p.partial() || n == 1) && (t.lower().equals(p.raws().get(j) + "ed") || t.lower().equals(p.raws().get(j) + "d")))) return 0;
             if (!Words.isStop(t)) content++;
             total += s;
         }

@@ -434,6 +434,21 @@ public final class Interpreter {
                 if (subject != null) link(e, subject);
                 if (object != null) link(e, object);
             }
+            // "importers in Lumeria", "Norvane exporters": a name right beside a class of another kind belongs to it.
+            for (QNode v : nodes) {
+                if (v.mention || v.values.isEmpty() || v.pos < 0 || links.containsKey(v.id)) continue;
+                QNode owner = null;
+                for (QNode c : nodes) {
+                    if (!c.mention || c.pos < 0) continue;
+                    // The class right after the name first ("Norvane exporters"), then one a preposition before.
+                    if (c.pos == endOf(v)) {
+                        owner = c;
+                        break;
+                    }
+                    if (c.pos < v.pos && endOf(c) < v.pos && onlyFunctionWords(endOf(c), v.pos, 1)) owner = c;
+                }
+                if (owner != null) link(owner, v);
+            }
         }
 
         /** The tokens of the verb that brought in or names an event node, or null when none did. */
@@ -442,14 +457,21 @@ public final class Interpreter {
                 // A relationship read from words that bring in both its ends joins nothing the question named.
                 if (nodes.stream().anyMatch(o -> o != n && o.fromRelationship && o.pos == n.pos)) return null;
                 for (Evidence.TermHit h : ev.termsOf(TermKind.RELATIONSHIP)) {
-                    if (h.from() == n.pos && !h.partial()) return new int[] {h.from(), h.to()};
+                    if (h.from() == n.pos && !h.partial() && verbal(h)) return new int[] {h.from(), h.to()};
                 }
                 return null;
             }
             if (!n.mention || n.pos < 0) return null;
             String w = ev.toks.get(n.pos).lower();
-            boolean partial = ev.terms.stream().anyMatch(h -> h.kind() == TermKind.LABEL && h.from() == n.pos && h.name().equals(n.label) && h.partial());
-            return partial && w.endsWith("ed") ? new int[] {n.pos, endOf(n)} : null;
+            // A class named by a verb made from its noun ("visited", "berthed"); not an adjective ("containerised").
+            boolean verb = w.endsWith("ed") && !w.endsWith("ised") && !w.endsWith("ized");
+            return verb ? new int[] {n.pos, endOf(n)} : null;
+        }
+
+        /** A relationship read from a verb ("called at", "call at"), not from a noun such as "goods". */
+        boolean verbal(Evidence.TermHit h) {
+            for (int i = h.from(); i < h.to(); i++) if (ev.toks.get(i).lower().endsWith("ed")) return true;
+            return h.to() - h.from() > 1 && Words.isStop(ev.toks.get(h.to() - 1));
         }
 
         boolean onlyFunctionWords(int from, int to, int within) {
@@ -466,6 +488,7 @@ public final class Interpreter {
 
         int endOf(QNode n) {
             for (Evidence.TermHit h : ev.terms) if (h.from() == n.pos && h.kind() == TermKind.LABEL) return h.to();
+            if (!n.mention) for (ValueFinder.Hit h : ev.values) if (h.from() == n.pos) return h.to();
             return n.pos + 1;
         }
 

@@ -122,6 +122,22 @@ class InterpreterTest {
     }
 
     @Test
+    void aNameBesideAClassBelongsToIt() {
+        // "importers in Lumeria": where the importers are based, not where some shipment came from.
+        String query = q("What goods did importers in Lumeria receive?");
+        assertTrue(query.contains("(c2)-[:BASED_IN]->(c3:Country)"), query);
+        assertFalse(query.contains("ORIGIN_COUNTRY"), query);
+        assertTrue(q("How many shipments did Norvane exporters send?").contains("(s2)-[:BASED_IN]->(c:Country) WHERE c.name = 'Norvane'"));
+    }
+
+    @Test
+    void aVerbMadeFromAClassNameIsThatEvent() {
+        // "berthed": the vessel lay at berths on its calls, reached through its voyages.
+        assertEquals("MATCH (p:PortCall)-[:AT_BERTH]->(b:Berth), (v:Voyage)-[:HAS_PORT_CALL]->(p), (v)-[:PERFORMED_BY]->(b2:BulkCarrier)"
+                + " WHERE b2.name = 'Halvory Riniel' RETURN DISTINCT b.berthNumber", q("At which berths has the Halvory Riniel berthed?"));
+    }
+
+    @Test
     void declinesWhatTheOntologyDoesNotCover() {
         for (String question : List.of("What will the weather be like tomorrow?", "Tell me a joke.", "", "42")) {
             Interpretation i = interpreter.interpret(question);
