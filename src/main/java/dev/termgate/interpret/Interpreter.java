@@ -512,6 +512,12 @@ public final class Interpreter {
 
         QNode focus() {
             for (QNode n : nodes) if (n.mention && !n.modifier && !n.negated && n.values.isEmpty()) return n;
+            // "Which calls at Marrowby …": the class a relationship word names, before a named instance.
+            QNode first = null;
+            for (QNode n : nodes) {
+                if (!n.negated && n.values.isEmpty() && (first == null || n.pos < first.pos)) first = n;
+            }
+            if (first != null) return first;
             for (QNode n : nodes) if (!n.negated) return n;
             return null;
         }
@@ -1335,7 +1341,7 @@ public final class Interpreter {
                 where.add("NOT EXISTS { MATCH " + String.join(", ", negParts)
                         + (negWhere.isEmpty() ? "" : " WHERE " + String.join(" AND ", negWhere)) + " }");
             }
-            if (!where.isEmpty()) q.append(" WHERE ").append(String.join(" AND ", where));
+            if (!where.isEmpty()) q.append(" WHERE ").append(String.join(" AND ", where.stream().distinct().toList()));
             q.append(" RETURN ");
             List<String> items = new ArrayList<>();
             String aggAlias = null;
@@ -1367,6 +1373,8 @@ public final class Interpreter {
             boolean askedOnly = !focus.values.isEmpty() && !s.projections.isEmpty();
             String shown = askedOnly ? null : displayOrNull(focus);
             if (shown != null) items.add(shown);
+            // An event with no name (a port call, an inspection) is told apart by when it happened.
+            if (shown == null && !askedOnly) for (String k : whenKeys(focus)) items.add(focus.var + "." + k);
             for (QNode n : s.extraNodes) {
                 String d = displayOrNull(n);
                 if (d != null && !items.contains(d)) items.add(d);
@@ -1388,6 +1396,11 @@ public final class Interpreter {
                 if (s.limitOne) q.append(" LIMIT 1");
             }
             return q.toString();
+        }
+
+        /** The dates and times the class itself declares, in the ontology's order. */
+        List<String> whenKeys(QNode n) {
+            return ownProperties(n.label).stream().filter(this::isTemporal).toList();
         }
 
         boolean partOfPositive(QNode n, QNode focus) {

@@ -138,6 +138,15 @@ class InterpreterTest {
     }
 
     @Test
+    void anEventWithNoNameIsShownByItsTimes() {
+        // The answer is the calls a relationship word names, not the port named after them; a port call has no
+        // name, so its arrival and departure tell the calls apart.
+        assertEquals("MATCH (p2:PortCall)-[:AT_PORT]->(p:Port) WHERE p.name = 'Marrowby' AND p2.departureTime < datetime('2024-03-01T00:00:00Z')"
+                + " RETURN DISTINCT p2.arrivalTime, p2.departureTime", q("Which calls at Marrowby departed before March 2024?"));
+        assertEquals("MATCH (i:Inspection) WHERE i.discrepancyFound = true RETURN i.inspectionDate", q("Which inspections found a discrepancy?"));
+    }
+
+    @Test
     void declinesWhatTheOntologyDoesNotCover() {
         for (String question : List.of("What will the weather be like tomorrow?", "Tell me a joke.", "", "42")) {
             Interpretation i = interpreter.interpret(question);
