@@ -47,6 +47,10 @@ public final class Evaluator {
         RunResult goldRows = null;
         if (!gold.valid()) {
             badGold = "the gold query is invalid: " + firstError(gold.diagnostics());
+        } else if (!gold.edits().isEmpty()) {
+            // A repaired gold is the repairer's guess at what its author meant, not a reference to score against.
+            badGold = "the gold query is invalid as written (a repair would change it: "
+                    + String.join("; ", gold.edits().stream().map(Checked.Edit::toString).toList()) + ")";
         } else {
             goldRows = runner.run(gold, limits);
             if (goldRows.failed()) badGold = "the gold query failed: " + firstError(goldRows.diagnostics());

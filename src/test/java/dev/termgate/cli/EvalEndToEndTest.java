@@ -143,9 +143,10 @@ class EvalEndToEndTest {
         assertEquals(3, byId.get("never").get("attempts").getAsInt());
         // The gold's own fault, named as such and not held against the model.
         assertEquals("bad_gold", byId.get("badgold").get("status").getAsString());
-        assertTrue(byId.get("badgold").get("detail").getAsString().startsWith("the gold query is invalid: "),
+        // c.nam is one letter short of name: the gate would repair it, but a gold is taken only as written.
+        assertTrue(byId.get("badgold").get("detail").getAsString().startsWith("the gold query is invalid as written (a repair would change it: "),
                 byId.get("badgold").toString());
-        assertTrue(byId.get("badgold").get("detail").getAsString().contains("nam"), byId.get("badgold").toString());
+        assertTrue(byId.get("badgold").get("detail").getAsString().contains("'nam' → 'name'"), byId.get("badgold").toString());
         // One ask per attempt, as the figures say.
         assertEquals(9, server.seen().size() - seenBefore);
     }
@@ -155,6 +156,17 @@ class EvalEndToEndTest {
     @BeforeEach
     void markSeen() {
         seenBefore = server.seen().size();
+    }
+
+    @Test
+    void goldNamingWhatTheOntologyLacksIsBadGold(@TempDir Path dir) throws Exception {
+        CliRun.Result r = eval(dir, q("g", "Which ports are there?", "MATCH (s:Starship) RETURN s.name", "list"), "--format", "json");
+        assertEquals(0, r.code(), r.all());
+        JsonObject res = JsonParser.parseString(r.out()).getAsJsonObject().getAsJsonArray("results").get(0).getAsJsonObject();
+        assertEquals("bad_gold", res.get("status").getAsString());
+        assertTrue(res.get("detail").getAsString().startsWith("the gold query is invalid: TG"), res.toString());
+        // The model's answer was still asked for and checked; it is just not scored.
+        assertTrue(res.get("valid").getAsBoolean(), res.toString());
     }
 
     @Test
