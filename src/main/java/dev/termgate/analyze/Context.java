@@ -9,6 +9,7 @@ import dev.termgate.schema.TermInfo;
 import dev.termgate.schema.TermKind;
 
 import java.util.ArrayList;
+import java.util.Collections;
 import java.util.Comparator;
 import java.util.IdentityHashMap;
 import java.util.LinkedHashMap;
@@ -35,6 +36,7 @@ final class Context {
     private final Map<String, TermUseBuilder> terms = new LinkedHashMap<>();
 
     private List<Node> all;
+    private Map<Class<?>, List<Node>> byClass;
 
     Context(GraphSchema schema, SchemaIndex index) {
         this.schema = schema;
@@ -43,21 +45,25 @@ final class Context {
 
     /**
      * Every node of the query of the given type, in pre-order. The tree is walked once per analysis and shared
-     * by the checks (a walk reads record components reflectively, which dominates the cost of small checks).
+     * by the checks, grouped by record class on the way, so a check asking for one class does not scan the rest.
      */
     @SuppressWarnings("unchecked")
     <T extends Node> List<T> nodes(Node root, Class<T> type) {
         if (all == null) {
             all = new ArrayList<>(64);
-            dev.termgate.query.Trees.walk(root, all::add);
+            byClass = new IdentityHashMap<>();
+            dev.termgate.query.Trees.walk(root, n -> {
+                all.add(n);
+                byClass.computeIfAbsent(n.getClass(), k -> new ArrayList<>(4)).add(n);
+            });
+        }
+        if (java.lang.reflect.Modifier.isFinal(type.getModifiers())) {
+            // one record class: its nodes were gathered during the walk, in pre-order
+            List<Node> same = byClass.get(type);
+            return same == null ? List.of() : (List<T>) Collections.unmodifiableList(same);
         }
         List<T> out = new ArrayList<>();
-        if (type.isRecord()) {
-            // one record class: compare classes, cheaper than isInstance against every node
-            for (Node n : all) if (n.getClass() == type) out.add((T) n);
-        } else {
-            for (Node n : all) if (type.isInstance(n)) out.add((T) n);
-        }
+        for (Node n : all) if (type.isInstance(n)) out.add((T) n);
         return out;
     }
 

@@ -280,7 +280,7 @@ final class ScopeCheck implements Check {
                 if (containsAggregate(item.expr())) continue;
                 if (item.expr() instanceof Expr.Variable v) groupingKeys.add(v.name());
                 else if (item.expr() instanceof Expr.Property pr && pr.target() instanceof Expr.Variable) {
-                    groupingKeys.add(Trees.stripSpans(pr));
+                    groupingKeys.add(groupingKey(pr));
                 }
             }
             Set<String> names = new LinkedHashSet<>();
@@ -307,8 +307,8 @@ final class ScopeCheck implements Check {
             }
             // ORDER BY sees the projected names, and also the earlier variables unless DISTINCT or an
             // aggregation dropped them; an expression equal to a projected one is always fine.
-            List<Expr> projected = p.orderBy().isEmpty() ? List.of()
-                    : p.items().stream().map(i -> (Expr) Trees.stripSpans(i.expr())).toList();
+            List<Expr> projected = new ArrayList<>(p.orderBy().isEmpty() ? 0 : p.items().size());
+            if (!p.orderBy().isEmpty()) for (Clause.ProjectionItem i : p.items()) projected.add(i.expr());
             Map<String, Binding> orderScope = new LinkedHashMap<>();
             boolean dropping = p.distinct() || aggregating;
             if (!dropping) orderScope.putAll(scope);
@@ -336,10 +336,18 @@ final class ScopeCheck implements Check {
             return new Projected(visible, columns);
         }
 
+        /**
+         * {@code v.key} as a grouping key: the variable's name and the key, apart by a NUL (which no name holds:
+         * the parser refuses NUL characters), so it never equals a plain variable's name.
+         */
+        private static String groupingKey(Expr.Property pr) {
+            return ((Expr.Variable) pr.target()).name() + '\u0000' + pr.key();
+        }
+
         /** Reports variables beside an aggregation that are not grouping keys (nor inside one). */
         private void ambiguous(Expr e, Set<Object> keys, Map<String, Binding> scope) {
             if (isAggregate(e)) return;
-            if (e instanceof Expr.Property pr && pr.target() instanceof Expr.Variable && keys.contains(Trees.stripSpans(pr))) return;
+            if (e instanceof Expr.Property pr && pr.target() instanceof Expr.Variable && keys.contains(groupingKey(pr))) return;
             if (e instanceof Expr.Variable v) {
                 if (!keys.contains(v.name()) && scope.containsKey(v.name())) {
                     cx.report(Diagnostic.of(Code.AMBIGUOUS_AGGREGATION, v, v.name()));
@@ -362,7 +370,7 @@ final class ScopeCheck implements Check {
         }
 
         private void orderExpr(Expr e, Map<String, Binding> scope, List<Expr> projected, String dropper, Place place) {
-            if (projected.contains(Trees.stripSpans(e))) {
+            if (projected.stream().anyMatch(x -> Trees.equalIgnoringSpans(x, e))) {
                 for (Expr.Variable v : Trees.find(e, Expr.Variable.class)) {
                     Binding b = scope.get(v.name());
                     if (b != null) cx.bind(v, b);

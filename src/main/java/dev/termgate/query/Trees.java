@@ -103,9 +103,39 @@ public final class Trees {
         return out;
     }
 
-    /** Structural equality that ignores every {@link Span}. */
+    /**
+     * Structural equality that ignores every {@link Span}: the same as comparing {@link #stripSpans} of both,
+     * without building the stripped copies.
+     */
     public static boolean equalIgnoringSpans(Node a, Node b) {
-        return stripSpans(a).equals(stripSpans(b));
+        return sameNode(a, b);
+    }
+
+    private static boolean sameNode(Node a, Node b) {
+        if (a == b) return true;
+        if (a == null || b == null || a.getClass() != b.getClass()) return false;
+        Shape shape = SHAPES.get(a.getClass());
+        for (int i = 0; i < shape.getters.length; i++) {
+            if (shape.slots[i] == Slot.SPAN) continue;
+            if (!sameValue(shape.getters[i].apply(a), shape.getters[i].apply(b))) return false;
+        }
+        return true;
+    }
+
+    private static boolean sameValue(Object x, Object y) {
+        if (x == y) return true;
+        if (x == null || y == null) return false;
+        if (x instanceof Node nx) return y instanceof Node ny && sameNode(nx, ny);
+        if (x instanceof Optional<?> ox) {
+            if (!(y instanceof Optional<?> oy) || ox.isPresent() != oy.isPresent()) return false;
+            return ox.isEmpty() || sameValue(ox.get(), oy.get());
+        }
+        if (x instanceof List<?> lx) {
+            if (!(y instanceof List<?> ly) || lx.size() != ly.size()) return false;
+            for (int i = 0; i < lx.size(); i++) if (!sameValue(lx.get(i), ly.get(i))) return false;
+            return true;
+        }
+        return x.equals(y);
     }
 
     /** The same tree with every span set to {@link Span#NONE}. */

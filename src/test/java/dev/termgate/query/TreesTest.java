@@ -60,6 +60,36 @@ class TreesTest {
         assertTrue(queries > 3000, "TCK queries parsed: " + queries);
     }
 
+    @Test
+    void equalIgnoringSpansAgreesWithComparingStrippedCopies() {
+        CypherParser parser = new CypherParser();
+        List<Query> trees = new ArrayList<>();
+        for (TckScenarios.Scenario s : TckScenarios.all()) {
+            if (s.query().isEmpty()) continue;
+            ParseResult r = parser.parse(s.query().get());
+            if (r.isValid()) trees.add(r.tree());
+        }
+        int equal = 0, pairs = 0;
+        for (int i = 0; i < trees.size(); i++) {
+            Query a = trees.get(i);
+            // the same query printed and read again: equal, with other spans
+            ParseResult again = parser.parse(Printer.print(a));
+            if (again.isValid()) {
+                assertEquals(Trees.stripSpans(a).equals(Trees.stripSpans(again.tree())), Trees.equalIgnoringSpans(a, again.tree()));
+                pairs++;
+            }
+            // its neighbour in the TCK: mostly different, sometimes the same query
+            Query b = trees.get((i + 1) % trees.size());
+            boolean reference = Trees.stripSpans(a).equals(Trees.stripSpans(b));
+            assertEquals(reference, Trees.equalIgnoringSpans(a, b), () -> Printer.print(a) + "\n" + Printer.print(b));
+            if (reference) equal++;
+            pairs++;
+        }
+        System.out.printf("Trees: equalIgnoringSpans agrees with comparing stripped copies on %d pairs (%d neighbours equal)%n",
+                pairs, equal);
+        assertTrue(pairs > 6000, "pairs: " + pairs);
+    }
+
     private static void collect(Class<?> c, Set<Class<?>> out) {
         if (c.isRecord()) {
             out.add(c);
