@@ -155,6 +155,8 @@ public final class Interpreter {
         final List<PEdge> edges = new ArrayList<>();
         final List<PEdge> negEdges = new ArrayList<>();
         Succession succession;
+        /** Searches of the class graph already made for this question (the mentioned types do not change within it). */
+        final Map<String, SchemaGraph.Path> paths = new HashMap<>();
         /** Node ids the question's grammar joins directly (see {@link #linkEvents}). */
         final Map<Integer, Set<Integer>> links = new HashMap<>();
         /** The classes of the question's own nodes: a path joining grammatical partners does not pass through them. */
@@ -1265,6 +1267,15 @@ public final class Interpreter {
             return starts;
         }
 
+        /** The class graph's cheapest path, remembered: the joining orders tried for one question repeat most searches. */
+        SchemaGraph.Path cheapest(Map<Integer, String> starts, String goal, Set<String> mentioned, Set<String> avoid) {
+            String key = starts + "|" + goal + "|" + avoid;
+            if (paths.containsKey(key)) return paths.get(key);
+            SchemaGraph.Path p = graph.cheapest(starts, goal, mentioned, avoid);
+            paths.put(key, p);
+            return p;
+        }
+
         String grow(List<QNode> tree, List<QNode> todo, Set<String> mentioned, List<PEdge> out, boolean inOrder) {
             while (!todo.isEmpty()) {
                 SchemaGraph.Path best = null;
@@ -1278,9 +1289,9 @@ public final class Interpreter {
                     continue;
                 }
                 for (QNode t : inOrder ? todo.subList(0, 1) : todo) {
-                    SchemaGraph.Path p = links.containsKey(t.id) ? graph.cheapest(starts(tree, t, true), t.label, mentioned, terminalClasses) : null;
-                    if (p == null) p = graph.cheapest(starts(tree, t, true), t.label, mentioned);
-                    if (p == null) p = graph.cheapest(starts(tree, t, false), t.label, mentioned);
+                    SchemaGraph.Path p = links.containsKey(t.id) ? cheapest(starts(tree, t, true), t.label, mentioned, terminalClasses) : null;
+                    if (p == null) p = cheapest(starts(tree, t, true), t.label, mentioned, Set.of());
+                    if (p == null) p = cheapest(starts(tree, t, false), t.label, mentioned, Set.of());
                     if (p != null && (best == null || p.cost() < best.cost())) {
                         best = p;
                         bestNode = t;

@@ -47,6 +47,8 @@ class InterpreterBenchTest {
             }
         }
         times.sort(null);
+        System.out.printf(Locale.ROOT, "load average at start: %.2f (figures measured while other work runs are inflated)%n",
+                java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage());
         System.out.printf(Locale.ROOT, "interpreter warm: median %.2f ms, p95 %.2f ms, max %.2f ms per question (%d runs)%n",
                 times.get(times.size() / 2) / 1e6, times.get(times.size() * 95 / 100) / 1e6, times.get(times.size() - 1) / 1e6, times.size());
 
