@@ -253,13 +253,15 @@ final class GraphFileFormat {
             vertices[i] = g.addVertex(keyValues);
         }
         long ne = in.varint();
+        Object[] noProps = new Object[2];
         for (long i = 0; i < ne; i++) {
             Object id = in.value();
             Vertex from = vertices[in.count()];
             Vertex to = vertices[in.count()];
             String label = in.string();
             int np = in.count();
-            Object[] kv = new Object[2 + 2 * np];
+            // Most edges have no properties: their array is reused (TinkerGraph keeps none of it).
+            Object[] kv = np == 0 ? noProps : new Object[2 + 2 * np];
             kv[0] = T.id;
             kv[1] = id;
             for (int k = 0; k < np; k++) {

@@ -43,7 +43,9 @@ public final class GraphIo {
      * reload. A file of an older format is refused with a message saying to import again.
      */
     public static TinkerGraph readBinary(Path file) {
-        TinkerGraph g = TinkerGraph.open();
+        org.apache.commons.configuration2.BaseConfiguration conf = new org.apache.commons.configuration2.BaseConfiguration();
+        conf.setProperty(TinkerGraph.GREMLIN_TINKERGRAPH_VERTEX_PROPERTY_ID_MANAGER, PropertyIds.class.getName());
+        TinkerGraph g = TinkerGraph.open(conf);
         try (InputStream in = Files.newInputStream(file)) {
             GraphFileFormat.read(in, g, file.toString());
         } catch (IOException | RuntimeException e) {
