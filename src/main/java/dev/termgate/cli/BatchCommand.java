@@ -8,6 +8,7 @@ import dev.termgate.batch.ResultLog;
 import dev.termgate.translate.Asker;
 import dev.termgate.translate.CardPrefetch;
 import dev.termgate.translate.Pipeline;
+import dev.termgate.translate.RunLimits;
 import dev.termgate.translate.TranslationLoop;
 import dev.termgate.translate.Translator;
 import picocli.CommandLine.Command;
@@ -93,31 +94,37 @@ public final class BatchCommand implements Callable<Integer> {
                 return Exit.OK;
             }
             Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
-            // Cards are built ahead on their own thread while the workers wait for the model.
-            try (CardPrefetch cards = new CardPrefetch(pipeline.cards(), todo.stream().map(BatchQuestion::question).toList(),
-                    PREFETCH_PER_JOB * jobs)) {
-                Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
-                Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), cards, model.attempts),
-                        pipeline.runner());
-                BatchRun.Summary s;
-                try (Progress progress = new Progress(err, System.console() != null, todo.size(), !noProgress)) {
-                    s = new BatchRun(asker, limits, jobs, withRows).run(qs.questions(), log, progress);
-                }
-                err.printf("termgate: %d asked (%d valid, %d without a valid query), %d already done, %d left without a result, %.1f s%n",
-                        s.asked(), s.valid(), s.invalid(), s.skipped(), s.unfinished(), s.elapsed().toMillis() / 1000.0);
-                if (s.stoppedBy().isPresent()) {
-                    throw AskWiring.failed(s.stoppedBy().get());
-                }
-                if (s.unfinished() > 0) {
-                    throw new UserError(Exit.SERVICE, s.unfinished() + " question(s) have no result because the model service failed ("
-                            + s.lastFailure().orElse("no detail") + "); run the same command again to finish them");
-                }
-                return Exit.OK;
+            try {
+                return run(pipeline, AskWiring.translator(settings, prompts, model.attempts, pipeline), qs, todo, log, limits, err);
             } finally {
                 AskWiring.closeQuietly(pipeline);
             }
         } catch (ResultLog.Unusable e) {
             throw new UserError(Exit.USAGE, e.getMessage());
+        }
+    }
+
+    private int run(Pipeline pipeline, Translator translator, QuestionFile.Questions qs, List<BatchQuestion> todo, ResultLog log,
+                    RunLimits limits, PrintWriter err) throws IOException, InterruptedException {
+        // Cards are built ahead on their own thread while the workers wait for the model.
+        List<String> ahead = translator.readsCard() ? todo.stream().map(BatchQuestion::question).toList() : List.of();
+        try (CardPrefetch cards = new CardPrefetch(pipeline.cards(), ahead, PREFETCH_PER_JOB * jobs)) {
+            Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), cards, model.attempts),
+                    pipeline.runner());
+            BatchRun.Summary s;
+            try (Progress progress = new Progress(err, System.console() != null, todo.size(), !noProgress)) {
+                s = new BatchRun(asker, limits, jobs, withRows).run(qs.questions(), log, progress);
+            }
+            err.printf("termgate: %d asked (%d valid, %d without a valid query), %d already done, %d left without a result, %.1f s%n",
+                    s.asked(), s.valid(), s.invalid(), s.skipped(), s.unfinished(), s.elapsed().toMillis() / 1000.0);
+            if (s.stoppedBy().isPresent()) {
+                throw AskWiring.failed(s.stoppedBy().get());
+            }
+            if (s.unfinished() > 0) {
+                throw new UserError(Exit.SERVICE, s.unfinished() + " question(s) have no result because the model service failed ("
+                        + s.lastFailure().orElse("no detail") + "); run the same command again to finish them");
+            }
+            return Exit.OK;
         }
     }
 

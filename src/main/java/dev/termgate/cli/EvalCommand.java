@@ -5,8 +5,6 @@ import dev.termgate.eval.EvalReport;
 import dev.termgate.eval.EvalResult;
 import dev.termgate.eval.Evaluator;
 import dev.termgate.eval.HtmlReport;
-import dev.termgate.interpret.OfflineTranslator;
-import dev.termgate.translate.CardSource;
 import dev.termgate.translate.Pipeline;
 import dev.termgate.translate.RunLimits;
 import dev.termgate.translate.TranslationLoop;
@@ -57,7 +55,6 @@ public final class EvalCommand implements Callable<Integer> {
 
     @Spec picocli.CommandLine.Model.CommandSpec spec;
 
-    private static final CardSource.Card NO_CARD = new CardSource.Card("", 0, List.of());
 
     private final Pipeline.Factory factory;
 
@@ -87,9 +84,7 @@ public final class EvalCommand implements Callable<Integer> {
         Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
         try {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
-            // The interpreter reads the whole schema, never the card: an evaluation of it does not prune one per question.
-            CardSource cards = translator instanceof OfflineTranslator ? question -> NO_CARD : pipeline.cards();
-            TranslationLoop loop = new TranslationLoop(translator, pipeline.gate(), cards, model.attempts);
+            TranslationLoop loop = new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts);
             Evaluator evaluator = new Evaluator(loop, pipeline.gate(), pipeline.runner(), whole);
             List<EvalResult> results = new ArrayList<>();
             long t0 = System.nanoTime();

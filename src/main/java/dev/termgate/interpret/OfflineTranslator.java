@@ -83,6 +83,11 @@ public final class OfflineTranslator implements Translator {
     }
 
     @Override
+    public boolean readsCard() {
+        return false;
+    }
+
+    @Override
     public Reply translate(TranslationRequest request) {
         Interpretation it = interpreter().interpret(request.question());
         if (it.query().isEmpty()) return Reply.declined(it.notUnderstood().orElse("no reading found"));

@@ -13,6 +13,9 @@ public interface CardSource {
      * @param terms  the graph names of the terms it holds
      */
     record Card(String text, int tokens, List<String> terms) {
+        /** What a translator that reads no card is given. */
+        public static final Card NONE = new Card("", 0, List.of());
+
         public Card {
             terms = List.copyOf(terms);
         }

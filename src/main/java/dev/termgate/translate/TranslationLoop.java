@@ -52,7 +52,7 @@ public final class TranslationLoop {
      */
     public Outcome translate(String question) {
         long t0 = System.nanoTime();
-        CardSource.Card card = cards.card(question);
+        CardSource.Card card = translator.readsCard() ? cards.card(question) : CardSource.Card.NONE;
         long t1 = System.nanoTime();
         List<Outcome.Attempt> attempts = new ArrayList<>();
         Tokens tokens = new Tokens();

@@ -14,4 +14,12 @@ public interface Translator {
      * @throws ServiceFailure when the service behind the translator failed (after its own retries)
      */
     Reply translate(TranslationRequest request);
+
+    /**
+     * Whether the request's schema card is read. The offline interpreter works on the whole schema and never
+     * does, so no card is built for it (schema linking and token counting are the costly part of a question).
+     */
+    default boolean readsCard() {
+        return true;
+    }
 }
