@@ -9,6 +9,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Locale;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
@@ -52,7 +53,15 @@ class BatchThroughputBench {
                     + "after start-up %.0f ms, ideal %.0f ms, overhead %.1f%%%n", n, latency, jobs, wall, startup, afterStartup,
                     ideal, 100 * (afterStartup - ideal) / ideal);
             double[] sum = new double[3];
-            for (String line : Files.readAllLines(out)) {
+            double[] quarter = new double[4];
+            List<String> lines = Files.readAllLines(out);
+            for (int i = 0; i < lines.size(); i++) {
+                quarter[i * 4 / lines.size()] += com.google.gson.JsonParser.parseString(lines.get(i)).getAsJsonObject()
+                        .getAsJsonObject("timings").get("translate_ms").getAsDouble() / (lines.size() / 4.0);
+            }
+            System.out.printf(Locale.ROOT, "translate mean by quarter of the run: %.0f, %.0f, %.0f, %.0f ms%n",
+                    quarter[0], quarter[1], quarter[2], quarter[3]);
+            for (String line : lines) {
                 var t = com.google.gson.JsonParser.parseString(line).getAsJsonObject().getAsJsonObject("timings");
                 sum[0] += t.get("card_ms").getAsDouble();
                 sum[1] += t.get("translate_ms").getAsDouble();

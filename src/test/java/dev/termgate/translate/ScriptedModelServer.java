@@ -94,6 +94,13 @@ public final class ScriptedModelServer implements AutoCloseable {
         return new Action.Delay(millis, then);
     }
 
+    static {
+        // Real model servers answer with TCP_NODELAY set; the JDK's server does not by default, and Nagle's delay
+        // against the client's delayed acknowledgement then adds about 40 ms to every exchange (read at class
+        // initialisation of the JDK server's configuration, so set before the first server is made).
+        System.setProperty("sun.net.httpserver.nodelay", "true");
+    }
+
     private final HttpServer server;
     private final Protocol protocol;
     private final List<Seen> seen = new CopyOnWriteArrayList<>();
