@@ -1,5 +1,7 @@
 package dev.termgate.interpret;
 
+import dev.termgate.link.LongestMatch;
+
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
@@ -32,34 +34,7 @@ final class ValueFinder {
 
     /** The longest value at each place, every value of that length; left to right, not overlapping. */
     List<Hit> find(List<Words.Tok> q) {
-        List<Hit> out = new ArrayList<>();
-        int i = 0;
-        while (i < q.size()) {
-            int longest = 0;
-            List<Entry> best = new ArrayList<>();
-            for (Entry e : byFirst.getOrDefault(q.get(i).stem(), List.of())) {
-                int k = e.stems().size();
-                if (k < longest || !matches(q, i, e)) continue;
-                if (k > longest) {
-                    longest = k;
-                    best.clear();
-                }
-                best.add(e);
-            }
-            if (longest == 0) {
-                i++;
-                continue;
-            }
-            for (Entry e : best) out.add(new Hit(e.value(), i, i + longest));
-            i += longest;
-        }
-        return out;
-    }
-
-    private static boolean matches(List<Words.Tok> q, int i, Entry e) {
-        int k = e.stems().size();
-        if (i + k > q.size()) return false;
-        for (int j = 0; j < k; j++) if (!q.get(i + j).stem().equals(e.stems().get(j))) return false;
-        return true;
+        return LongestMatch.find(q, Words.Tok::stem, byFirst, Entry::stems, (i, e) -> true).stream()
+                .map(m -> new Hit(m.phrase().value(), m.from(), m.to())).toList();
     }
 }

@@ -38,40 +38,21 @@ public final class InMemoryValueIndex implements ValueIndex {
     public List<ValueMention> find(String question) {
         List<Word> words = words(question);
         List<ValueMention> out = new ArrayList<>();
-        int i = 0;
-        while (i < words.size()) {
-            int longest = 0;
-            List<Entry> hits = new ArrayList<>();
-            for (Entry e : byFirstWord.getOrDefault(words.get(i).lower(), List.of())) {
-                int k = e.words().size();
-                if (k < longest || !matchesAt(words, i, e)) continue;
-                if (k > longest) {
-                    longest = k;
-                    hits.clear();
-                }
-                hits.add(e);
-            }
-            if (longest == 0) {
-                i++;
-                continue;
-            }
-            int start = words.get(i).start();
-            int end = words.get(i + longest - 1).end();
-            for (Entry e : hits) out.add(new ValueMention(e.value(), e.label(), e.property(), start, end));
-            i += longest;
+        for (LongestMatch.Match<Entry> m : LongestMatch.find(words, Word::lower, byFirstWord, Entry::words,
+                (i, e) -> written(words.get(i), e))) {
+            Entry e = m.phrase();
+            out.add(new ValueMention(e.value(), e.label(), e.property(), words.get(m.from()).start(), words.get(m.to() - 1).end()));
         }
         return out;
     }
 
-    private static boolean matchesAt(List<Word> words, int i, Entry e) {
-        int k = e.words().size();
-        if (i + k > words.size()) return false;
-        for (int j = 0; j < k; j++) {
-            if (!words.get(i + j).lower().equals(e.words().get(j))) return false;
-        }
-        if (k == 1 && e.value().chars().allMatch(Character::isLetter)) {
-            Word w = words.get(i);
-            return w.quoted() || Character.isUpperCase(w.raw().charAt(0));
+    /**
+     * A one-word value made only of letters must be capitalised or quoted where it is written: otherwise an
+     * ordinary word ("atlas") would be read as a name ("Atlas").
+     */
+    private static boolean written(Word first, Entry e) {
+        if (e.words().size() == 1 && e.value().chars().allMatch(Character::isLetter)) {
+            return first.quoted() || Character.isUpperCase(first.raw().charAt(0));
         }
         return true;
     }
