@@ -440,6 +440,18 @@ final class ScopeCheck implements Check {
             declareQuietly(v, t, scope);
         }
 
+        /**
+         * Checks a list comprehension's or quantifier's list in the outer scope, and returns the scope inside it:
+         * the outer one plus its variable, typed as the list's elements.
+         */
+        private Map<String, Binding> elementScope(Expr source, Expr.Variable variable, Map<String, Binding> scope, Place place) {
+            Type elem = elementType(source, scope);
+            expr(source, scope, place);
+            Map<String, Binding> inner = new LinkedHashMap<>(scope);
+            declareQuietly(variable, elem, inner);
+            return inner;
+        }
+
         private void declareQuietly(Expr.Variable v, Type t, Map<String, Binding> scope) {
             Binding b = new Binding(v.name(), t);
             scope.put(v.name(), b);
@@ -523,20 +535,14 @@ final class ScopeCheck implements Check {
                 return Type.ANY;
             }
             if (e instanceof Expr.ListComprehension lc) {
-                Type elem = elementType(lc.source(), scope);
-                expr(lc.source(), scope, place);
-                Map<String, Binding> inner = new LinkedHashMap<>(scope);
-                declareQuietly(lc.variable(), elem, inner);
+                Map<String, Binding> inner = elementScope(lc.source(), lc.variable(), scope, place);
                 Place in = new Place("a list comprehension", false, place.insideAggregate());
                 lc.where().ifPresent(w -> boolCheck(w, expr(w, inner, in), "WHERE"));
                 lc.map().ifPresent(m -> expr(m, inner, in));
                 return Type.LIST;
             }
             if (e instanceof Expr.Quantified q) {
-                Type elem = elementType(q.source(), scope);
-                expr(q.source(), scope, place);
-                Map<String, Binding> inner = new LinkedHashMap<>(scope);
-                declareQuietly(q.variable(), elem, inner);
+                Map<String, Binding> inner = elementScope(q.source(), q.variable(), scope, place);
                 Place in = new Place("a quantifier", false, place.insideAggregate());
                 q.where().ifPresent(w -> boolCheck(w, expr(w, inner, in), "WHERE"));
                 return Type.BOOLEAN;

@@ -11,10 +11,8 @@ import dev.termgate.translate.ServiceFailure;
 import dev.termgate.translate.TranslationLoop;
 import dev.termgate.translate.Translator;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
 
 import java.io.PrintWriter;
 import java.util.concurrent.Callable;
@@ -29,15 +27,10 @@ import java.util.concurrent.Callable;
                 "2:usage error (bad option, missing API key, unreadable prompts)",
                 "3:the model service or the graph server failed",
                 "4:internal error"})
-public final class AskCommand implements Callable<Integer> {
+public final class AskCommand extends QuestionCommand implements Callable<Integer> {
 
     @Parameters(paramLabel = "QUESTION", arity = "1..*", description = "the question (several words are joined)")
     java.util.List<String> words;
-
-    @Mixin ModelOptions model;
-    @Mixin OntologyOptions ontology;
-    @Mixin GraphOptions graph;
-    @Mixin BudgetOption budget;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text, json (the batch record) or csv (rows only; the rest on standard error)")
@@ -49,16 +42,12 @@ public final class AskCommand implements Callable<Integer> {
     @Option(names = "--explain", description = "also show the plan that ran: the Gremlin traversals and the client-side steps")
     boolean explain;
 
-    @Spec picocli.CommandLine.Model.CommandSpec spec;
-
-    private final Pipeline.Factory factory;
-
     public AskCommand() {
         this(AskWiring.standard());
     }
 
     AskCommand(Pipeline.Factory factory) {
-        this.factory = factory;
+        super(factory);
     }
 
     @Override
@@ -73,7 +62,7 @@ public final class AskCommand implements Callable<Integer> {
         var settings = model.settings();
         var prompts = model.prompts();
         RunLimits limits = graph.limits();
-        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
+        Pipeline pipeline = openPipeline(err);
         try {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts), pipeline.runner());

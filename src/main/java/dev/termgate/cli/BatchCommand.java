@@ -12,9 +12,7 @@ import dev.termgate.translate.RunLimits;
 import dev.termgate.translate.TranslationLoop;
 import dev.termgate.translate.Translator;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Spec;
 
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -35,7 +33,7 @@ import java.util.concurrent.Callable;
                 "2:usage error (bad option, unreadable question file, unwritable output, missing API key)",
                 "3:the model service failed: questions were left without a result (rerun to finish them), or the provider refused the key or the model name",
                 "4:internal error"})
-public final class BatchCommand implements Callable<Integer> {
+public final class BatchCommand extends QuestionCommand implements Callable<Integer> {
 
     /** Cards built ahead per worker: enough to never leave a worker waiting, few enough to keep memory flat (common practice). */
     static final int PREFETCH_PER_JOB = 4;
@@ -59,21 +57,12 @@ public final class BatchCommand implements Callable<Integer> {
     @Option(names = "--no-progress", description = "print no progress")
     boolean noProgress;
 
-    @Mixin ModelOptions model;
-    @Mixin OntologyOptions ontology;
-    @Mixin GraphOptions graph;
-    @Mixin BudgetOption budget;
-
-    @Spec picocli.CommandLine.Model.CommandSpec spec;
-
-    private final Pipeline.Factory factory;
-
     public BatchCommand() {
         this(AskWiring.standard());
     }
 
     BatchCommand(Pipeline.Factory factory) {
-        this.factory = factory;
+        super(factory);
     }
 
     @Override
@@ -93,7 +82,7 @@ public final class BatchCommand implements Callable<Integer> {
                 err.println("termgate: all " + qs.questions().size() + " questions already have a result in " + out);
                 return Exit.OK;
             }
-            Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
+            Pipeline pipeline = openPipeline(err);
             try {
                 return run(pipeline, AskWiring.translator(settings, prompts, model.attempts, pipeline), qs, todo, log, limits, err);
             } finally {

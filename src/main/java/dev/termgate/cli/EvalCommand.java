@@ -10,9 +10,7 @@ import dev.termgate.translate.RunLimits;
 import dev.termgate.translate.TranslationLoop;
 import dev.termgate.translate.Translator;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Spec;
 
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -34,7 +32,7 @@ import java.util.concurrent.Callable;
                 "2:usage error (bad option, unreadable file, unwritable report)",
                 "3:the model service failed for every question",
                 "4:internal error"})
-public final class EvalCommand implements Callable<Integer> {
+public final class EvalCommand extends QuestionCommand implements Callable<Integer> {
 
     @Option(names = "--questions", required = true, paramLabel = "FILE", description = "JSON lines: id, question, gold[, shape, split]")
     Path questions;
@@ -48,22 +46,12 @@ public final class EvalCommand implements Callable<Integer> {
     @Option(names = "--html", paramLabel = "FILE", description = "also write a self-contained HTML report with charts")
     Path html;
 
-    @Mixin ModelOptions model;
-    @Mixin OntologyOptions ontology;
-    @Mixin GraphOptions graph;
-    @Mixin BudgetOption budget;
-
-    @Spec picocli.CommandLine.Model.CommandSpec spec;
-
-
-    private final Pipeline.Factory factory;
-
     public EvalCommand() {
         this(AskWiring.standard());
     }
 
     EvalCommand(Pipeline.Factory factory) {
-        this.factory = factory;
+        super(factory);
     }
 
     @Override
@@ -81,7 +69,7 @@ public final class EvalCommand implements Callable<Integer> {
         RunLimits limits = graph.limits();
         // Results are compared whole: no row cap, the time limit stays.
         RunLimits whole = new RunLimits(limits.timeout(), Integer.MAX_VALUE);
-        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
+        Pipeline pipeline = openPipeline(err);
         try {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             TranslationLoop loop = new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts);

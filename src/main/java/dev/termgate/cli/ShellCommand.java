@@ -7,7 +7,6 @@ import dev.termgate.translate.Translator;
 import org.jline.terminal.Terminal;
 import org.jline.terminal.TerminalBuilder;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 
 import java.io.IOException;
@@ -27,12 +26,7 @@ import java.util.concurrent.Callable;
                 "2:usage error (bad option, missing API key)",
                 "3:the graph server could not be reached",
                 "4:internal error"})
-public final class ShellCommand implements Callable<Integer> {
-
-    @Mixin ModelOptions model;
-    @Mixin OntologyOptions ontology;
-    @Mixin GraphOptions graph;
-    @Mixin BudgetOption budget;
+public final class ShellCommand extends QuestionCommand implements Callable<Integer> {
 
     @Option(names = "--history", paramLabel = "FILE", description = "history file (default: see above)")
     Path history;
@@ -40,14 +34,12 @@ public final class ShellCommand implements Callable<Integer> {
     @Option(names = "--no-history", description = "keep no history file")
     boolean noHistory;
 
-    private final Pipeline.Factory factory;
-
     public ShellCommand() {
         this(AskWiring.standard());
     }
 
     ShellCommand(Pipeline.Factory factory) {
-        this.factory = factory;
+        super(factory);
     }
 
     @Override
@@ -55,7 +47,7 @@ public final class ShellCommand implements Callable<Integer> {
         var settings = model.settings();
         var prompts = model.prompts();
         var limits = graph.limits();
-        Pipeline pipeline = AskWiring.open(factory, graph.spec(ontology, budget.tokens(), new java.io.PrintWriter(System.err, true)));
+        Pipeline pipeline = openPipeline(new java.io.PrintWriter(System.err, true));
         try (Terminal terminal = TerminalBuilder.builder().name("termgate").system(true).build()) {
             Translator translator = AskWiring.translator(settings, prompts, model.attempts, pipeline);
             ShellState.TranslatorMaker maker = spec -> {
