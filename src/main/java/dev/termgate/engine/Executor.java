@@ -80,7 +80,24 @@ final class Executor implements Evaluator.Host {
         // Variables in scope, tracked from the clauses so that RETURN * has columns even with no rows.
         Set<String> scope = new java.util.LinkedHashSet<>();
         if (!input.isEmpty()) for (String n : input.get(0).names()) scope.add(n);
-        for (Clause c : q.clauses()) {
+        int from = 0;
+        ProjectionPushdown.Planned pushed = ProjectionPushdown.plan(q, input, this);
+        List<Row> pushedRows = pushed == null ? null : pushed.run(control);
+        if (pushedRows != null) {
+            // The first MATCH and its projection ran in the traversal; the rest of that projection runs here.
+            from = 2;
+            Clause c = q.clauses().get(1);
+            Clause.Projection p = c instanceof Clause.With w ? w.projection() : ((Clause.Return) c).projection();
+            Optional<Expr> where = c instanceof Clause.With w ? w.where() : Optional.empty();
+            List<Item> items = items(p, scope);
+            List<Projected> projected = new ArrayList<>(pushedRows.size());
+            for (Row r : pushedRows) projected.add(new Projected(r, r));
+            Table t = finish(p, items, projected, where, pushed.orderPushed());
+            rows = t.rows();
+            if (c instanceof Clause.With) scope = new java.util.LinkedHashSet<>(t.columns());
+            else columns = t.columns();
+        }
+        for (Clause c : q.clauses().subList(from, q.clauses().size())) {
             control.checkNow();
             if (c instanceof Clause.Match m) {
                 rows = match(m, rows);
@@ -158,7 +175,7 @@ final class Executor implements Evaluator.Host {
 
     // ---------------------------------------------------------------- WITH / RETURN
 
-    private record Item(String name, Expr expr) {}
+    record Item(String name, Expr expr) {}
 
     /** An output row plus the scope ORDER BY may read (the input row's variables when not aggregating). */
     private record Projected(Row out, Row scope) {}
@@ -173,6 +190,12 @@ final class Executor implements Evaluator.Host {
             if (keep < rows.size()) rows = rows.subList(0, (int) keep);
         }
         List<Projected> projected = aggregating ? aggregate(items, rows) : plain(items, rows);
+        return finish(p, items, projected, where, false);
+    }
+
+    /** DISTINCT, ORDER BY, SKIP/LIMIT (unless the traversal did them: {@code ordered}) and WITH's WHERE. */
+    private Table finish(Clause.Projection p, List<Item> items, List<Projected> projected, Optional<Expr> where, boolean ordered) {
+        List<String> columns = items.stream().map(Item::name).toList();
         if (p.distinct()) {
             Set<Object> seen = new HashSet<>();
             List<Projected> kept = new ArrayList<>();
@@ -183,9 +206,9 @@ final class Executor implements Evaluator.Host {
             }
             projected = kept;
         }
-        if (!p.orderBy().isEmpty()) projected = order(p.orderBy(), items, projected);
-        long skip = p.skip().map(e -> count(e, "SKIP")).orElse(0L);
-        long limit = p.limit().map(e -> count(e, "LIMIT")).orElse(Long.MAX_VALUE);
+        if (!p.orderBy().isEmpty() && !ordered) projected = order(p.orderBy(), items, projected);
+        long skip = ordered ? 0 : p.skip().map(e -> count(e, "SKIP")).orElse(0L);
+        long limit = ordered ? Long.MAX_VALUE : p.limit().map(e -> count(e, "LIMIT")).orElse(Long.MAX_VALUE);
         if (skip > 0 || limit < Long.MAX_VALUE) {
             int from = (int) Math.min(skip, projected.size());
             int to = (int) Math.min(projected.size(), from + Math.min(limit, Integer.MAX_VALUE));
@@ -200,14 +223,14 @@ final class Executor implements Evaluator.Host {
         return new Table(columns, out);
     }
 
-    private long count(Expr e, String what) {
+    long count(Expr e, String what) {
         Object v = ev.eval(e, Row.EMPTY);
         if (v instanceof Double d && d == Math.rint(d)) v = d.longValue();
         if (!(v instanceof Long l) || l < 0) throw EngineException.runtime(what + " must be a non-negative integer");
         return l;
     }
 
-    private List<Item> items(Clause.Projection p, Set<String> scope) {
+    List<Item> items(Clause.Projection p, Set<String> scope) {
         List<Item> items = new ArrayList<>();
         if (p.star()) {
             Set<String> names = new TreeSet<>();

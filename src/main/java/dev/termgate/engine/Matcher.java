@@ -177,7 +177,7 @@ final class Matcher {
         });
     }
 
-    private static List<Expr> conjuncts(Expr e) {
+    static List<Expr> conjuncts(Expr e) {
         if (e instanceof Expr.Binary b && b.op() == Expr.BinaryOp.AND) {
             List<Expr> out = new ArrayList<>(conjuncts(b.left()));
             out.addAll(conjuncts(b.right()));
@@ -186,7 +186,7 @@ final class Matcher {
         return List.of(e);
     }
 
-    private static Pushdown asPushdown(Expr c) {
+    static Pushdown asPushdown(Expr c) {
         if (c instanceof Expr.IsNull n && n.negated() && n.operand() instanceof Expr.Property p
                 && p.target() instanceof Expr.Variable v) {
             return new Pushdown(v.name(), p.key(), null, null, true);
@@ -316,8 +316,26 @@ final class Matcher {
      * the last node, then from the start back leftwards; null when it can match nothing. Steps are labelled by
      * their written position ({@code n0..nk}, {@code r0..rk-1}), whatever order they run in.
      */
-    @SuppressWarnings("unchecked")
     GraphTraversal<Vertex, ?> compile(PartPlan plan, Row row, List<Pushdown> pushed, boolean explain) {
+        GraphTraversal<Vertex, Vertex> t = compileSteps(plan, row, pushed, explain);
+        if (t == null) return null;
+        int k = plan.rels().size();
+        if (k == 0) return t.elementMap();
+        String[] rest = new String[2 * k];
+        for (int i = 0; i < k; i++) {
+            rest[2 * i] = "r" + i;
+            rest[2 * i + 1] = "n" + (i + 1);
+        }
+        return t.select("n0", rest[0], java.util.Arrays.copyOfRange(rest, 1, rest.length)).by(__.elementMap());
+    }
+
+    /**
+     * The matching steps of {@link #compile} without the final read-out: every match is one traverser whose
+     * path labels {@code n0..nk} and {@code r0..rk-1} hold its elements (ProjectionPushdown appends its own
+     * grouping to this); null when it can match nothing.
+     */
+    @SuppressWarnings("unchecked")
+    GraphTraversal<Vertex, Vertex> compileSteps(PartPlan plan, Row row, List<Pushdown> pushed, boolean explain) {
         int s = plan.start();
         String first = plan.nodeVars().get(s);
         GraphTraversal<Vertex, Vertex> t = row.has(first)
@@ -337,13 +355,7 @@ final class Matcher {
             t = hop(t, plan, i, flipped(plan.rels().get(i)), i, row, pushed, explain, visitedNodes, visitedRels);
             if (t == null) return null;
         }
-        if (k == 0) return t.elementMap();
-        String[] rest = new String[2 * k];
-        for (int i = 0; i < k; i++) {
-            rest[2 * i] = "r" + i;
-            rest[2 * i + 1] = "n" + (i + 1);
-        }
-        return t.select("n0", rest[0], java.util.Arrays.copyOfRange(rest, 1, rest.length)).by(__.elementMap());
+        return t;
     }
 
     /**
