@@ -69,8 +69,9 @@ final class ProjectionPushdown {
         return integral().or(floating());
     }
 
+    /** Values a grouping or sort key may hold: numbers of any kind (Values.normalize reads them all), strings, booleans. */
     private static P<Object> scalar() {
-        return numeric().or(P.typeOf(GType.STRING)).or(P.typeOf(GType.BOOLEAN));
+        return P.typeOf(GType.NUMBER).or(P.typeOf(GType.STRING)).or(P.typeOf(GType.BOOLEAN));
     }
 
     /** Below this magnitude a number grouped as a double keeps openCypher's equivalence (see Values.groupKey). */
@@ -169,7 +170,8 @@ final class ProjectionPushdown {
 
     /**
      * WHERE conjuncts the traversal evaluates exactly as openCypher would keep rows: {@code var.key IS NOT NULL}
-     * (stored properties are never null), comparisons of a property with a number or string literal (Gremlin's
+     * (stored properties are never null), comparisons of a property with a number or string literal, equality
+     * with a boolean one (Gremlin's
      * comparability is false, as openCypher's null, across types and for NaN, and {@code neq} is true across
      * types like openCypher's {@code <>}), {@code IN} a list of such literals and the string predicates.
      */
@@ -179,7 +181,8 @@ final class ProjectionPushdown {
             if (p == null || !vars.contains(p.var())) return false;
             if (p.notNull()) continue;
             boolean ok = switch (p.op()) {
-                case EQ, NE, LT, GT, LE, GE -> exactLiteral(p.value(), false);
+                case EQ, NE -> exactLiteral(p.value(), true);
+                case LT, GT, LE, GE -> exactLiteral(p.value(), false);
                 case STARTS_WITH, ENDS_WITH, CONTAINS -> p.value() instanceof Expr.StringLit;
                 case IN -> p.value() instanceof Expr.ListLit l && !l.elements().isEmpty()
                         && l.elements().stream().allMatch(x -> exactLiteral(x, false));
@@ -327,7 +330,7 @@ final class ProjectionPushdown {
         private static GraphTraversal groupingValue(Col c) {
             GraphTraversal v = __.select(c.label());
             if (c.key() == null) return v;
-            return v.values(c.key()).choose(__.is(numeric()), __.math("_ + 0"), __.identity());
+            return v.values(c.key()).choose(__.is(P.typeOf(GType.NUMBER)), __.math("_ + 0"), __.identity());
         }
 
         /** Per group, from the folded rows: the key values as stored, the aggregates' partials, the checks. */
@@ -347,7 +350,7 @@ final class ProjectionPushdown {
                         bys.add(c.key() == null ? values.limit(1).elementMap() : values.limit(1).fold());
                         if (c.key() != null) {
                             checks.add(__.select(c.label()).values(c.key()).or(__.not(__.is(scalar())),
-                                    __.is(numeric()).is(P.outside(-EXACT_KEY, EXACT_KEY))));
+                                    __.is(P.typeOf(GType.NUMBER)).is(P.outside(-EXACT_KEY, EXACT_KEY))));
                         }
                     }
                     case COUNT -> {
@@ -382,7 +385,8 @@ final class ProjectionPushdown {
                         bys.add(extreme(values(c).is(P.typeOf(GType.STRING)), min));
                         names.add(a + "b");
                         bys.add(extreme(values.is(P.typeOf(GType.BOOLEAN)), min));
-                        checks.add(__.select(c.label()).values(c.key()).not(__.is(scalar())));
+                        checks.add(__.select(c.label()).values(c.key()).not(__.is(numeric().or(P.typeOf(GType.STRING))
+                                .or(P.typeOf(GType.BOOLEAN)))));
                     }
                 }
             }

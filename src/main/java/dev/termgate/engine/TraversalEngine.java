@@ -129,7 +129,15 @@ final class TraversalEngine implements Engine {
         for (SingleQuery sq : req.query().parts()) {
             if (sq != req.query().first()) steps.add(new Plan.Step(Plan.Kind.CLIENT, "UNION", "combine rows"));
             Map<String, Object> scope = new LinkedHashMap<>();
-            for (Clause c : sq.clauses()) explainClause(c, ex, name, scope, steps);
+            List<Clause> clauses = sq.clauses();
+            ProjectionPushdown.Planned pushed = ProjectionPushdown.plan(sq, List.of(Row.EMPTY), ex);
+            var t = pushed == null ? null : pushed.traversal(true);
+            if (t != null) {
+                explainPushed(pushed, GremlinText.of(t), clauses.get(1), name, steps);
+                clauses = clauses.subList(2, clauses.size());
+                for (Executor.Item it : ex.items(projection(sq.clauses().get(1)), java.util.Set.of())) scope.put(it.name(), null);
+            }
+            for (Clause c : clauses) explainClause(c, ex, name, scope, steps);
         }
         return new Plan(steps);
     }
@@ -172,6 +180,24 @@ final class TraversalEngine implements Engine {
         }
     }
 
+    private static Clause.Projection projection(Clause c) {
+        return c instanceof Clause.With w ? w.projection() : ((Clause.Return) c).projection();
+    }
+
+    /** The first MATCH and its projection as one traversal; only what the client still does as client steps. */
+    private static void explainPushed(ProjectionPushdown.Planned pushed, String traversal, Clause c,
+                                      Function<dev.termgate.query.Node, String> name, List<Plan.Step> steps) {
+        String kw = c instanceof Clause.With ? "WITH" : "RETURN";
+        Clause.Projection p = projection(c);
+        steps.add(new Plan.Step(Plan.Kind.TRAVERSAL, "MATCH … " + kw, traversal));
+        if (pushed.finishedOnClient()) {
+            steps.add(new Plan.Step(Plan.Kind.CLIENT, kw, "finish aggregates from the traversal's partial results"
+                    + " (exact float sums, least/greatest across types, distinct values under openCypher equality)"));
+        }
+        if (!pushed.orderPushed()) explainOrder(p, name, steps);
+        if (c instanceof Clause.With w) w.where().ifPresent(x -> steps.add(new Plan.Step(Plan.Kind.CLIENT, "WHERE", name.apply(x))));
+    }
+
     private static void explainProjection(String kw, Clause.Projection p, Function<dev.termgate.query.Node, String> name, List<Plan.Step> steps) {
         List<String> items = new ArrayList<>();
         if (p.star()) items.add("*");
@@ -181,6 +207,10 @@ final class TraversalEngine implements Engine {
         boolean agg = p.items().stream().anyMatch(i -> Aggregation.contains(i.expr()));
         steps.add(new Plan.Step(Plan.Kind.CLIENT, kw, (agg ? "group and aggregate " : "project ")
                 + (p.distinct() ? "DISTINCT " : "") + String.join(", ", items)));
+        explainOrder(p, name, steps);
+    }
+
+    private static void explainOrder(Clause.Projection p, Function<dev.termgate.query.Node, String> name, List<Plan.Step> steps) {
         if (!p.orderBy().isEmpty()) {
             List<String> keys = new ArrayList<>();
             for (Clause.SortItem s : p.orderBy()) keys.add(name.apply(s.expr()) + (s.descending() ? " DESC" : ""));

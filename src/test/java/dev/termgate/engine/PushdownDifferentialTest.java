@@ -76,7 +76,7 @@ class PushdownDifferentialTest {
     };
     private static final String[] WHERES = {
         "", "", "", " WHERE a.q IS NOT NULL", " WHERE a.p > 0", " WHERE a.q <> 1", " WHERE a.s STARTS WITH 'x'",
-        " WHERE a.q IN [1, 't1', 2.5] AND a.p >= -1", " WHERE a.q = 2",
+        " WHERE a.q IN [1, 't1', 2.5] AND a.p >= -1", " WHERE a.q = 2", " WHERE a.q = true", " WHERE a.q <> false AND a.s < 'y1'", " WHERE a.p <= 1.5",
     };
     private static final String[] KEYS_NODE = {"a", "a.q", "a.s", "a.q", "a.s"};
     private static final String[] KEYS_REL = {"b.q", "r", "r.w", "b"};

@@ -68,18 +68,29 @@ class RemoteEngineTest {
     @Test
     void remoteEqualsEmbeddedOnEveryDemoGoldQuery() {
         List<String> differences = new ArrayList<>();
+        int pushed = 0;
+        List<String> notPushedRemotely = new ArrayList<>();
         CypherParser parser = new CypherParser();
         try (Engine embedded = GraphFiles.demo(DemoQueries.schema()).engine();
              Engine remote = Engines.remote(url(), "g", Duration.ofSeconds(10))) {
             for (DemoQueries.Gold g : DemoQueries.gold()) {
                 Query q = parser.parse(g.query()).tree();
                 Request req = Request.of(q, g.query(), DemoQueries.schema(), Limits.defaults());
+                long taken = ProjectionPushdown.TAKEN.get();
                 Result a = embedded.run(req);
+                long embeddedPushed = ProjectionPushdown.TAKEN.get() - taken;
                 Result b = remote.run(req);
+                // A pushed plan must also run pushed on the server (the bytecode is lambda-free and serializes),
+                // not fall back to the client path.
+                if (ProjectionPushdown.TAKEN.get() - taken != 2 * embeddedPushed) notPushedRemotely.add(g.id());
+                pushed += (int) embeddedPushed;
                 if (!a.columns().equals(b.columns()) || !bag(a).equals(bag(b))) differences.add(g.id());
             }
         }
+        System.out.printf("remote == embedded on %d demo gold queries; %d ran their projection in the traversal%n",
+                DemoQueries.gold().size(), pushed);
         assertEquals(List.of(), differences, "gold queries whose remote rows differ from the embedded rows");
+        assertEquals(List.of(), notPushedRemotely, "gold queries pushed embedded but not remotely");
     }
 
     private static List<String> bag(Result r) {

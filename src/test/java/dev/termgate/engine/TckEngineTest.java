@@ -99,9 +99,13 @@ class TckEngineTest {
     }
 
     static String lastDetail = "";
+    /** Whether the last scenario's query was answered by a pushed projection (ProjectionPushdown). */
+    static boolean lastPushed;
 
     static final class Report {
         int passed;
+        int pushed;
+        int pushedPassed;
         final Map<String, List<String>> failures = new TreeMap<>();
 
         int total() {
@@ -114,6 +118,7 @@ class TckEngineTest {
 
         void print(String title) {
             System.out.printf("%s: %d of %d passed (%.1f%%)%n", title, passed, total(), 100.0 * passed / Math.max(1, total()));
+            System.out.printf("  %d ran their projection in the traversal (ProjectionPushdown), %d of them pass%n", pushed, pushedPassed);
             failures.entrySet().stream()
                     .sorted((a, b) -> b.getValue().size() - a.getValue().size())
                     .forEach(e -> {
@@ -128,6 +133,8 @@ class TckEngineTest {
         CypherParser parser = new CypherParser();
         for (TckScenarios.Scenario s : scenarios) {
             String cause = runOne(s, parser);
+            if (lastPushed) report.pushed++;
+            if (lastPushed && cause == null) report.pushedPassed++;
             if (cause == null) report.passed++;
             else report.fail(cause, s.id());
         }
@@ -156,8 +163,11 @@ class TckEngineTest {
         if (!pr.isValid()) return "query does not parse: " + shorten(pr.diagnostics().get(0).message());
         Result result;
         try (Engine engine = Engines.embedded(builder.graph(), "tck")) {
+            long taken = ProjectionPushdown.TAKEN.get();
+            lastPushed = false;
             result = engine.run(new Request(pr.tree(), text, GraphSchema.empty(), params,
                     Limits.unlimitedRows(Duration.ofSeconds(10))));
+            lastPushed = ProjectionPushdown.TAKEN.get() > taken;
         } catch (EngineException e) {
             lastDetail = String.valueOf(e.getCause());
             return e.code().id() + " " + shorten(e.getMessage());
