@@ -55,23 +55,26 @@ final class ProjectionPushdown {
     /** Runs answered by a pushed traversal (tests report how often the pushdown path is taken). */
     static final AtomicLong TAKEN = new AtomicLong();
 
-    // Fresh predicates each time: or() on a connective predicate adds to it in place.
-    private static P<Object> integral() {
-        return P.typeOf(GType.LONG).or(P.typeOf(GType.INT)).or(P.typeOf(GType.SHORT)).or(P.typeOf(GType.BYTE));
-    }
-
-    private static P<Object> floating() {
-        return P.typeOf(GType.DOUBLE).or(P.typeOf(GType.FLOAT));
-    }
-
-    /** Numbers of a fixed-size Java type: the only ones the client's arithmetic and grouping see. */
-    private static P<Object> numeric() {
-        return integral().or(floating());
-    }
-
+    private static final GType[] INTEGRAL = {GType.LONG, GType.INT, GType.SHORT, GType.BYTE};
+    private static final GType[] FLOATING = {GType.DOUBLE, GType.FLOAT};
+    /** Numbers of a fixed-size Java type: the only ones the client's arithmetic sees. */
+    private static final GType[] NUMERIC = {GType.LONG, GType.INT, GType.SHORT, GType.BYTE, GType.DOUBLE, GType.FLOAT};
     /** Values a grouping or sort key may hold: numbers of any kind (Values.normalize reads them all), strings, booleans. */
-    private static P<Object> scalar() {
-        return P.typeOf(GType.NUMBER).or(P.typeOf(GType.STRING)).or(P.typeOf(GType.BOOLEAN));
+    private static final GType[] SCALAR = {GType.NUMBER, GType.STRING, GType.BOOLEAN};
+    /** Values whose least and greatest the traversal finds per type. */
+    private static final GType[] ORDERABLE = {GType.LONG, GType.INT, GType.SHORT, GType.BYTE, GType.DOUBLE, GType.FLOAT,
+        GType.STRING, GType.BOOLEAN};
+
+    /**
+     * A filter passing values of any of the types. An or() of traversals, not of predicates: a remote server
+     * (3.8.1, GraphBinary) was seen to drop the third operand of {@code P.typeOf(..).or(..).or(..)}.
+     */
+    @SuppressWarnings("rawtypes")
+    private static GraphTraversal ofType(GType... types) {
+        if (types.length == 1) return __.is(P.typeOf(types[0]));
+        GraphTraversal[] alternatives = new GraphTraversal[types.length];
+        for (int i = 0; i < types.length; i++) alternatives[i] = __.is(P.typeOf(types[i]));
+        return __.or(alternatives);
     }
 
     /** Below this magnitude a number grouped as a double keeps openCypher's equivalence (see Values.groupKey). */
@@ -330,7 +333,7 @@ final class ProjectionPushdown {
         private static GraphTraversal groupingValue(Col c) {
             GraphTraversal v = __.select(c.label());
             if (c.key() == null) return v;
-            return v.values(c.key()).choose(__.is(P.typeOf(GType.NUMBER)), __.math("_ + 0"), __.identity());
+            return v.values(c.key()).choose(ofType(GType.NUMBER), __.math("_ + 0"), __.identity());
         }
 
         /** Per group, from the folded rows: the key values as stored, the aggregates' partials, the checks. */
@@ -349,8 +352,8 @@ final class ProjectionPushdown {
                         names.add("k" + key++);
                         bys.add(c.key() == null ? values.limit(1).elementMap() : values.limit(1).fold());
                         if (c.key() != null) {
-                            checks.add(__.select(c.label()).values(c.key()).or(__.not(__.is(scalar())),
-                                    __.is(P.typeOf(GType.NUMBER)).is(P.outside(-EXACT_KEY, EXACT_KEY))));
+                            checks.add(__.select(c.label()).values(c.key()).or(__.not(ofType(SCALAR)),
+                                    ofType(GType.NUMBER).is(P.outside(-EXACT_KEY, EXACT_KEY))));
                         }
                     }
                     case COUNT -> {
@@ -367,26 +370,25 @@ final class ProjectionPushdown {
                     }
                     case SUM, AVG -> {
                         names.add(a + "i");
-                        bys.add(values(c).is(integral()).sum().fold());
+                        bys.add(values(c).filter(ofType(INTEGRAL)).sum().fold());
                         names.add(a + "f");
-                        bys.add(values(c).is(floating()).groupCount());
+                        bys.add(values(c).filter(ofType(FLOATING)).groupCount());
                         names.add(a + "n");
-                        bys.add(values.is(numeric()).count());
-                        checks.add(__.select(c.label()).values(c.key()).not(__.is(numeric())));
+                        bys.add(values.filter(ofType(NUMERIC)).count());
+                        checks.add(__.select(c.label()).values(c.key()).not(ofType(NUMERIC)));
                     }
                     case MIN, MAX -> {
                         boolean min = c.kind() == Kind.MIN;
                         names.add(a + "i");
-                        bys.add(extreme(values(c).is(integral()), min));
+                        bys.add(extreme(values(c).filter(ofType(INTEGRAL)), min));
                         names.add(a + "f");
                         // order() ranks NaN above every number, as openCypher does; min() and max() skip it.
-                        bys.add(values(c).is(floating()).order().by(min ? Order.asc : Order.desc).limit(1).fold());
+                        bys.add(values(c).filter(ofType(FLOATING)).order().by(min ? Order.asc : Order.desc).limit(1).fold());
                         names.add(a + "s");
                         bys.add(extreme(values(c).is(P.typeOf(GType.STRING)), min));
                         names.add(a + "b");
                         bys.add(extreme(values.is(P.typeOf(GType.BOOLEAN)), min));
-                        checks.add(__.select(c.label()).values(c.key()).not(__.is(numeric().or(P.typeOf(GType.STRING))
-                                .or(P.typeOf(GType.BOOLEAN)))));
+                        checks.add(__.select(c.label()).values(c.key()).not(ofType(ORDERABLE)));
                     }
                 }
             }

@@ -198,10 +198,48 @@ class PushdownDifferentialTest {
             }
         }
         long taken = ProjectionPushdown.TAKEN.get() - taken0;
-        System.out.printf("pushdown differential: %d queries, %d answered by the pushed traversal, %d mismatches%n",
+        System.out.printf("pushdown differential (embedded): %d queries, %d answered by the pushed traversal, %d mismatches%n",
                 queries, taken, mismatches);
         assertEquals(List.of(), report, "pushed results that differ from the client path");
         // Without this the test could pass by never pushing anything.
         assertTrue(taken >= queries / 2, "only " + taken + " of " + queries + " queries took the pushdown path");
+    }
+
+    /**
+     * The same comparison with the pushed traversal sent to a Gremlin Server in this JVM (GraphBinary): the
+     * bytecode must serialize, run there without lambdas, and still not fall back to the client path.
+     */
+    @Test
+    void pushedResultsFromAServerEqualClientResults() throws Exception {
+        Random rnd = new Random(7310L);
+        int queries = 0;
+        long taken = 0;
+        List<String> report = new ArrayList<>();
+        for (int gi = 0; gi < 3; gi++) {
+            TinkerGraph g = graph(rnd, gi == 2);
+            int port = RemoteEngineTest.freePort();
+            var server = RemoteEngineTest.start(g, port);
+            try (Engine remote = Engines.remote("ws://127.0.0.1:" + port + "/gremlin", "g", Duration.ofSeconds(10));
+                 Engine embedded = Engines.embedded(g, "differential")) {
+                for (int qi = 0; qi < 30; qi++) {
+                    StringBuilder text = new StringBuilder();
+                    boolean[] ordered = new boolean[1];
+                    Query q = query(rnd, text, ordered);
+                    long before = ProjectionPushdown.TAKEN.get();
+                    List<String> pushed = outcome(remote, q, text.toString(), ordered[0]);
+                    taken += ProjectionPushdown.TAKEN.get() - before;
+                    ProjectionPushdown.enabled = false;
+                    List<String> client = outcome(embedded, q, text.toString(), ordered[0]);
+                    ProjectionPushdown.enabled = true;
+                    queries++;
+                    if (!pushed.equals(client) && report.size() < 8) report.add(text + "\n  remote " + pushed + "\n  client " + client);
+                }
+            } finally {
+                server.stop().get();
+            }
+        }
+        System.out.printf("pushdown differential (remote): %d queries, %d answered by the pushed traversal%n", queries, taken);
+        assertEquals(List.of(), report, "remote pushed results that differ from the embedded client path");
+        assertTrue(taken >= queries / 2, "only " + taken + " of " + queries + " queries took the pushdown path remotely");
     }
 }
