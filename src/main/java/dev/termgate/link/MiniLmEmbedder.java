@@ -2,9 +2,18 @@ package dev.termgate.link;
 
 import dev.langchain4j.data.embedding.Embedding;
 import dev.langchain4j.data.segment.TextSegment;
+import ai.onnxruntime.OrtEnvironment;
+import ai.onnxruntime.OrtException;
+import ai.onnxruntime.OrtSession;
 import dev.langchain4j.model.embedding.EmbeddingModel;
+import dev.langchain4j.model.embedding.onnx.AbstractInProcessEmbeddingModel;
+import dev.langchain4j.model.embedding.onnx.OnnxBertBiEncoder;
+import dev.langchain4j.model.embedding.onnx.PoolingMode;
 import dev.langchain4j.model.embedding.onnx.allminilml6v2q.AllMiniLmL6V2QuantizedEmbeddingModel;
 
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Executor;
@@ -14,6 +23,11 @@ import java.util.concurrent.atomic.AtomicInteger;
 /**
  * all-MiniLM-L6-v2 (quantized) run in process by LangChain4j's ONNX runtime: no network, no GPU. The model
  * is loaded lazily on first use (about half a second) and shared, since loading it twice only costs memory.
+ * <p>
+ * The model file and tokenizer are the ones the LangChain4j artifact ships, but the ONNX session is our own:
+ * by default the runtime gives each inference a pool of threads that spin between operators, which on a small
+ * machine doubles the CPU of every question and takes a core from the batch workers and the engine. One
+ * thread per inference, no spinning; {@link #embedAll} still runs inferences side by side on {@link #workers}.
  */
 final class MiniLmEmbedder implements Embedder {
 
@@ -29,7 +43,7 @@ final class MiniLmEmbedder implements Embedder {
             synchronized (this) {
                 m = model;
                 if (m == null) {
-                    m = new AllMiniLmL6V2QuantizedEmbeddingModel(workers());
+                    m = new Quiet(workers());
                     model = m;
                 }
             }
@@ -49,6 +63,53 @@ final class MiniLmEmbedder implements Embedder {
             t.setDaemon(true);
             return t;
         });
+    }
+
+    /** The bundled model with a single-threaded, non-spinning session. */
+    private static final class Quiet extends AbstractInProcessEmbeddingModel {
+        private static final String MODEL = "all-minilm-l6-v2-q.onnx";
+        private static final String TOKENIZER = "all-minilm-l6-v2-q-tokenizer.json";
+
+        private final OnnxBertBiEncoder encoder;
+
+        Quiet(Executor workers) {
+            super(workers);
+            OrtEnvironment env = OrtEnvironment.getEnvironment();
+            try (OrtSession.SessionOptions options = new OrtSession.SessionOptions();
+                 InputStream tokenizer = resource(TOKENIZER)) {
+                options.setIntraOpNumThreads(1);
+                options.setInterOpNumThreads(1);
+                options.addConfigEntry("session.intra_op.allow_spinning", "0");
+                options.addConfigEntry("session.inter_op.allow_spinning", "0");
+                byte[] model;
+                try (InputStream in = resource(MODEL)) {
+                    model = in.readAllBytes();
+                }
+                // Same pooling as the artifact's own model class (mean of the token vectors).
+                encoder = new OnnxBertBiEncoder(env, env.createSession(model, options), tokenizer, PoolingMode.MEAN);
+            } catch (OrtException e) {
+                throw new IllegalStateException("the bundled embedding model cannot be loaded: " + e.getMessage(), e);
+            } catch (IOException e) {
+                throw new UncheckedIOException("the bundled embedding model cannot be read", e);
+            }
+        }
+
+        private static InputStream resource(String name) {
+            // The artifact's own model class finds its files next to it.
+            InputStream in = AllMiniLmL6V2QuantizedEmbeddingModel.class.getClassLoader().getResourceAsStream(name);
+            if (in == null) throw new IllegalStateException("the bundled embedding model is missing " + name);
+            return in;
+        }
+
+        @Override
+        protected OnnxBertBiEncoder model() {
+            return encoder;
+        }
+
+        @Override
+        protected Integer knownDimension() {
+            return 384;
+        }
     }
 
     @Override

@@ -177,6 +177,8 @@ final class StandardLinker implements SchemaLinker {
             // A whole question dilutes a word no name contains ("born" for birthPlace): such phrases are also
             // embedded alone, and each term keeps its best similarity.
             for (String phrase : phrases()) {
+                // A phrase that is the whole text cannot score higher than the text did.
+                if (phrase.equals(text)) continue;
                 double[] ps = tv.similarities(Embedder.miniLm().embed(phrase));
                 for (int i = 0; i < ps.length; i++) {
                     if (ps[i] > sims[i]) {

@@ -6,17 +6,25 @@ import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.Semaphore;
+import java.util.concurrent.atomic.AtomicBoolean;
 
 /**
  * Builds the cards of the questions a batch will ask ahead of time, on one background thread, so that the
  * workers spend their time waiting on the model rather than on schema linking: while a worker waits for a
  * reply, the card of a question further down the list is built. At most {@code window} cards wait unclaimed,
- * which keeps memory flat for long question files.
+ * which keeps memory flat for long question files. No card is built twice: a worker that reaches a question
+ * the builder has not started builds it itself, and one whose card is under way waits for it.
  */
 public final class CardPrefetch implements CardSource, AutoCloseable {
 
+    /** One announced question's card: claimed by whoever builds it first (the builder or a worker), once. */
+    private static final class Slot {
+        final AtomicBoolean claimed = new AtomicBoolean();
+        final CompletableFuture<Card> card = new CompletableFuture<>();
+    }
+
     private final CardSource cards;
-    private final Map<String, CompletableFuture<Card>> ready = new ConcurrentHashMap<>();
+    private final Map<String, Slot> ready = new ConcurrentHashMap<>();
     private final Semaphore room;
     private final Thread builder;
 
@@ -29,7 +37,7 @@ public final class CardPrefetch implements CardSource, AutoCloseable {
         this.cards = cards;
         this.room = new Semaphore(window);
         List<String> order = List.copyOf(questions);
-        order.forEach(q -> ready.putIfAbsent(q, new CompletableFuture<>()));
+        order.forEach(q -> ready.putIfAbsent(q, new Slot()));
         this.builder = new Thread(() -> build(order), "termgate-card-prefetch");
         builder.setDaemon(true);
         builder.start();
@@ -37,33 +45,49 @@ public final class CardPrefetch implements CardSource, AutoCloseable {
 
     private void build(List<String> order) {
         for (String q : order) {
-            CompletableFuture<Card> slot = ready.get(q);
-            if (slot == null || slot.isDone()) continue;
+            Slot slot = ready.get(q);
+            if (slot == null || slot.claimed.get()) continue;
             try {
                 room.acquire();
             } catch (InterruptedException e) {
                 return;
             }
-            boolean kept;
-            try {
-                kept = !slot.isDone() && slot.complete(cards.card(q));
-            } catch (RuntimeException e) {
-                kept = slot.completeExceptionally(e);
+            // A worker that got there first builds the card itself; the room is free again.
+            if (!slot.claimed.compareAndSet(false, true)) {
+                room.release();
+                continue;
             }
-            // A worker that got there first built the card itself; the room is free again.
-            if (!kept) room.release();
+            fill(slot, q);
+        }
+    }
+
+    private void fill(Slot slot, String question) {
+        try {
+            slot.card.complete(cards.card(question));
+        } catch (RuntimeException e) {
+            slot.card.completeExceptionally(e);
         }
     }
 
     @Override
     public Card card(String question) {
-        CompletableFuture<Card> slot = ready.remove(question);
+        Slot slot = ready.remove(question);
         if (slot == null) return cards.card(question);
-        // Built already: claim it. Not yet (the builder is behind or the window is full): build it here rather
-        // than wait, and leave the builder's copy, if it is under way, to be thrown away.
-        if (slot.isDone() || !slot.complete(cards.card(question))) room.release();
+        // Not started by the builder (it is behind): build it here. Started or built: wait for it, since building
+        // it twice would only take CPU from the other workers.
+        if (slot.claimed.compareAndSet(false, true)) {
+            fill(slot, question);
+        } else {
+            try {
+                slot.card.join();
+            } catch (RuntimeException ignored) {
+                // rethrown below, with its own type
+            } finally {
+                room.release();
+            }
+        }
         try {
-            return slot.get();
+            return slot.card.get();
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             return cards.card(question);

@@ -41,7 +41,7 @@ final class EngineRunner implements QueryRunner {
         try {
             Result r = engine.run(req, control);
             if (caller.isInterrupted()) throw new InterruptedException();
-            return new RunResult(r.columns(), plainRows(r), r.truncated(), plan(r, req), List.of());
+            return new RunResult(r.columns(), plainRows(r), r.truncated(), () -> plan(r, req), List.of());
         } catch (EngineException e) {
             if (Thread.interrupted()) throw new InterruptedException();
             return new RunResult(List.of(), List.of(), false, "", List.of(Diagnostic.at(e.code(), Span.NONE, e.getMessage())

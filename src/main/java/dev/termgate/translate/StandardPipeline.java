@@ -42,8 +42,8 @@ public final class StandardPipeline implements Pipeline.Factory {
      * model, is built only when a question first needs it.
      */
     static CardSource questionCards(GraphSchema schema, int budget) {
-        Supplier<CardSource.Card> whole = memo(() -> of(Cards.whole(schema, TokenEncoding.DEFAULT)));
-        Supplier<SchemaLinker> linker = memo(() -> Linkers.standard(schema, LinkOptions.defaults()));
+        Supplier<CardSource.Card> whole = Memo.of(() -> of(Cards.whole(schema, TokenEncoding.DEFAULT)));
+        Supplier<SchemaLinker> linker = Memo.of(() -> Linkers.standard(schema, LinkOptions.defaults()));
         return question -> {
             CardSource.Card all = whole.get();
             if (all.tokens() <= budget) return all;
@@ -58,17 +58,5 @@ public final class StandardPipeline implements Pipeline.Factory {
 
     static CardSource.Card of(Card c) {
         return new CardSource.Card(c.text(), c.tokens(), c.terms().stream().map(CardTerm::name).toList());
-    }
-
-    private static <T> Supplier<T> memo(Supplier<T> s) {
-        return new Supplier<>() {
-            private T value;
-
-            @Override
-            public synchronized T get() {
-                if (value == null) value = s.get();
-                return value;
-            }
-        };
     }
 }
