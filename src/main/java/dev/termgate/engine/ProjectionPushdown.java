@@ -8,7 +8,6 @@ import dev.termgate.query.Trees;
 import org.apache.tinkerpop.gremlin.process.traversal.GType;
 import org.apache.tinkerpop.gremlin.process.traversal.Order;
 import org.apache.tinkerpop.gremlin.process.traversal.P;
-import org.apache.tinkerpop.gremlin.process.traversal.Scope;
 import org.apache.tinkerpop.gremlin.process.traversal.dsl.graph.GraphTraversal;
 import org.apache.tinkerpop.gremlin.process.traversal.dsl.graph.__;
 import org.apache.tinkerpop.gremlin.structure.Column;
@@ -41,8 +40,9 @@ import java.util.concurrent.atomic.AtomicLong;
  *     count(DISTINCT x), sum/avg/min/max of {@code var.key}, collect of {@code var.key} or a variable.</li>
  * </ul>
  * Where Gremlin's value semantics differ from openCypher's the traversal returns exact partial results and
- * the client finishes them: grouping and DISTINCT compare 1 and 1.0 as different (so number keys are grouped
- * as doubles, exact below 9e15, and larger ones send the query back to the client); {@code sum()} adds floats
+ * the client finishes them, or it checks the values and the client path answers: grouping and DISTINCT
+ * compare 1 and 1.0 as different (so a group keyed by an integral float, or by a non-Long integer type, fails
+ * the check); {@code sum()} adds floats
  * left to right and {@code min()} turns mixed numbers into doubles (so integers are summed in the traversal,
  * floats come back as value/multiplicity pairs and are summed exactly, and min/max are taken per type);
  * {@code order()} ranks types and null differently (so sort keys carry openCypher's null and type rank
@@ -59,8 +59,6 @@ final class ProjectionPushdown {
     private static final GType[] FLOATING = {GType.DOUBLE, GType.FLOAT};
     /** Numbers of a fixed-size Java type: the only ones the client's arithmetic sees. */
     private static final GType[] NUMERIC = {GType.LONG, GType.INT, GType.SHORT, GType.BYTE, GType.DOUBLE, GType.FLOAT};
-    /** Values a grouping or sort key may hold: numbers of any kind (Values.normalize reads them all), strings, booleans. */
-    private static final GType[] SCALAR = {GType.NUMBER, GType.STRING, GType.BOOLEAN};
     /** Values whose least and greatest the traversal finds per type. */
     private static final GType[] ORDERABLE = {GType.LONG, GType.INT, GType.SHORT, GType.BYTE, GType.DOUBLE, GType.FLOAT,
         GType.STRING, GType.BOOLEAN};
@@ -77,8 +75,6 @@ final class ProjectionPushdown {
         return __.or(alternatives);
     }
 
-    /** Below this magnitude a number grouped as a double keeps openCypher's equivalence (see Values.groupKey). */
-    private static final double EXACT_KEY = 9.0e15;
 
     private ProjectionPushdown() {}
 
@@ -142,7 +138,8 @@ final class ProjectionPushdown {
             sort.add(new Sort(c, s.descending()));
         }
         boolean hasKeys = cols.stream().anyMatch(c -> c.kind() == Kind.KEY);
-        boolean orderPushed = hasKeys && sort != null && (!p.orderBy().isEmpty() || p.skip().isPresent() || p.limit().isPresent())
+        // Sorting in the traversal pays only when SKIP or LIMIT then send fewer rows back.
+        boolean orderPushed = hasKeys && sort != null && (p.skip().isPresent() || p.limit().isPresent())
                 && cols.stream().allMatch(c -> c.kind() == Kind.KEY || c.kind() == Kind.COUNT || c.kind() == Kind.COLLECT)
                 && sort.stream().allMatch(s -> cols.get(s.column()).exactInTraversal());
         long skip = 0, limit = -1;
@@ -283,9 +280,28 @@ final class ProjectionPushdown {
             return cols.stream().anyMatch(c -> c.kind() == Kind.KEY);
         }
 
-        /** True when some value may turn out not to be vouched for (then the client path answers). */
-        private boolean hasChecks() {
-            return cols.stream().anyMatch(c -> c.key() != null && c.kind() != Kind.COUNT && c.kind() != Kind.COLLECT);
+        /** True when a grouping key is a property, whose values the traversal must vouch for per group. */
+        private boolean keyChecks() {
+            return cols.stream().anyMatch(c -> c.kind() == Kind.KEY && c.key() != null);
+        }
+
+        /**
+         * The one aggregate when it is a count the traversal finishes: then each group reduces straight to it
+         * (no rows are folded); -1 when there are other aggregates, or several.
+         */
+        private int singleCount() {
+            int found = -1;
+            for (int i = 0; i < cols.size(); i++) {
+                Col c = cols.get(i);
+                if (c.kind() == Kind.KEY) continue;
+                if (found >= 0 || c.kind() != Kind.COUNT || c.distinct() && c.key() != null) return -1;
+                found = i;
+            }
+            return found;
+        }
+
+        private boolean aggregating() {
+            return cols.stream().anyMatch(c -> c.kind() != Kind.KEY);
         }
 
         @SuppressWarnings({"unchecked", "rawtypes"})
@@ -300,19 +316,47 @@ final class ProjectionPushdown {
                 for (int i = 0; i < k; i++) all.add("r" + i);
                 t = t.dedup(all.toArray(String[]::new));
             }
-            List<String> used = new ArrayList<>();
-            for (Col c : cols) if (c.label() != null && !used.contains(c.label())) used.add(c.label());
-            if (!used.isEmpty()) {
-                t = t.project(used.get(0), used.subList(1, used.size()).toArray(String[]::new));
-                for (String l : used) t = t.by(__.select(l));
+            int single = singleCount();
+            if (aggregating() && single < 0) {
+                // fold() drops the path, so the elements the partial results read are first taken out of it.
+                List<String> used = new ArrayList<>();
+                for (Col c : cols) if (c.label() != null && !used.contains(c.label())) used.add(c.label());
+                if (!used.isEmpty()) {
+                    t = t.project(used.get(0), used.subList(1, used.size()).toArray(String[]::new));
+                    for (String l : used) t = t.by(__.select(l));
+                }
             }
-            if (!hasKeys()) return summary(t.fold());
-            GraphTraversal groupKey = __.project("k0", keyNames().subList(1, keyNames().size()).toArray(String[]::new));
-            for (Col c : cols) if (c.kind() == Kind.KEY) groupKey = groupKey.by(groupingValue(c));
-            t = t.group().by(groupKey).by(summary(__.fold())).select(Column.values).unfold();
+            if (!hasKeys()) return single >= 0 ? count(t, cols.get(single)) : summary(t.fold());
+            List<String> keys = keyNames();
+            GraphTraversal groupKey = __.project(keys.get(0), keys.subList(1, keys.size()).toArray(String[]::new));
+            for (Col c : cols) {
+                if (c.kind() == Kind.KEY) groupKey = groupKey.by(c.key() == null ? __.select(c.label()) : __.select(c.label()).values(c.key()));
+            }
+            // With no aggregate (DISTINCT) the group's value is never read; count() keeps it small.
+            GraphTraversal value = !aggregating() ? __.count() : single >= 0 ? count(__.start(), cols.get(single)) : summary(__.fold());
+            // A missing property leaves its entry out of the key map: the group of null, read back as null.
+            boolean rows = single >= 0 && cols.get(single).label() == null;
+            t = rows ? t.groupCount().by(groupKey) : t.group().by(groupKey).by(value);
+            boolean elementKeys = cols.stream().anyMatch(c -> c.kind() == Kind.KEY && c.key() == null);
+            if (sort == null && !elementKeys) return t; // one map from key values to group values
+            t = t.unfold();
+            List<String> names = new ArrayList<>(keys);
+            names.add("v");
+            if (sort != null && keyChecks()) names.add("bad");
+            t = t.project(names.get(0), names.subList(1, names.size()).toArray(String[]::new));
+            List<GraphTraversal> checks = new ArrayList<>();
+            int key = 0;
+            for (Col c : cols) {
+                if (c.kind() != Kind.KEY) continue;
+                String kn = "k" + key++;
+                t = t.by(c.key() == null ? __.select(Column.keys).select(kn).elementMap() : __.select(Column.keys).select(kn));
+                if (c.key() != null && sort != null) checks.add(keyCheck(kn));
+            }
+            t = t.by(__.select(Column.values));
             if (sort == null) return t;
-            if (!hasChecks()) return ordered(t);
-            // Every group's checks must pass, not only those of the rows LIMIT keeps.
+            if (checks.isEmpty()) return ordered(t);
+            // Every group's key must pass the check, not only those of the rows LIMIT keeps.
+            t = t.by(__.select(Column.keys).union(checks.toArray(GraphTraversal[]::new)).limit(1).count());
             return t.fold().project("bad", "rows")
                     .by(__.unfold().select("bad").is(P.gt(0L)).count())
                     .by(ordered(__.unfold()).fold());
@@ -325,37 +369,38 @@ final class ProjectionPushdown {
         }
 
         /**
-         * The grouping form of a key: the element, or the property with numbers as doubles, so that 1 and 1.0
-         * fall in one group as in openCypher (exact below {@link #EXACT_KEY}; larger ones fail the checks);
-         * a missing property leaves the entry out of the key map, which is then its own group, like null.
+         * Groups are keyed by the stored values, which Gremlin compares with Java equality: exact for integers
+         * (Long), non-integral doubles, strings and booleans, which is openCypher's equivalence on those. An
+         * integral double (2.0, which openCypher groups with 2), a narrower number type (Integer 2 beside Long
+         * 2) or a list, map or temporal value fails the check and the client path answers.
          */
         @SuppressWarnings("rawtypes")
-        private static GraphTraversal groupingValue(Col c) {
-            GraphTraversal v = __.select(c.label());
-            if (c.key() == null) return v;
-            return v.values(c.key()).choose(ofType(GType.NUMBER), __.math("_ + 0"), __.identity());
+        private static GraphTraversal keyCheck(String name) {
+            return __.select(name).or(__.not(ofType(GType.LONG, GType.DOUBLE, GType.STRING, GType.BOOLEAN)),
+                    ofType(GType.DOUBLE).math("_ - floor(_)").is(P.eq(0.0)));
         }
 
-        /** Per group, from the folded rows: the key values as stored, the aggregates' partials, the checks. */
+        /** A count the traversal finishes, appended to {@code t} (the rows, or one group's rows). */
+        @SuppressWarnings({"unchecked", "rawtypes"})
+        private static GraphTraversal count(GraphTraversal t, Col c) {
+            if (c.label() == null) return t.count();
+            t = t.select(c.label());
+            if (c.key() != null) return t.values(c.key()).count();
+            return c.distinct() ? t.dedup().count() : t.count();
+        }
+
+        /** Per group (or for all rows), from the folded rows: the aggregates' partial results and their checks. */
         @SuppressWarnings({"unchecked", "rawtypes"})
         private GraphTraversal summary(GraphTraversal folded) {
             List<String> names = new ArrayList<>();
             List<GraphTraversal> bys = new ArrayList<>();
             List<GraphTraversal> checks = new ArrayList<>();
-            int key = 0;
             for (int i = 0; i < cols.size(); i++) {
                 Col c = cols.get(i);
                 GraphTraversal values = values(c);
                 String a = "a" + i;
                 switch (c.kind()) {
-                    case KEY -> {
-                        names.add("k" + key++);
-                        bys.add(c.key() == null ? values.limit(1).elementMap() : values.limit(1).fold());
-                        if (c.key() != null) {
-                            checks.add(__.select(c.label()).values(c.key()).or(__.not(ofType(SCALAR)),
-                                    ofType(GType.NUMBER).is(P.outside(-EXACT_KEY, EXACT_KEY))));
-                        }
-                    }
+                    case KEY -> { }
                     case COUNT -> {
                         names.add(a);
                         if (values == null) bys.add(__.unfold().count());
@@ -426,14 +471,14 @@ final class ProjectionPushdown {
                     Col c = cols.get(s.column());
                     Order dir = s.descending() ? Order.desc : Order.asc;
                     if (c.kind() != Kind.KEY) {
-                        t = t.by(__.select("a" + s.column()), dir);
+                        t = t.by(singleCount() >= 0 ? __.select("v") : __.select("v").select("a" + s.column()), dir);
                         continue;
                     }
                     String k = "k" + keyIndex(s.column());
-                    t = t.by(__.select(k).count(Scope.local), s.descending() ? Order.asc : Order.desc)
-                            .by(__.coalesce(__.select(k).unfold().choose(__.is(P.typeOf(GType.STRING)), __.constant(0),
-                                    __.choose(__.is(P.typeOf(GType.BOOLEAN)), __.constant(1), __.constant(2))), __.constant(-1)), dir)
-                            .by(__.coalesce(__.select(k).unfold(), __.constant(0)), dir);
+                    t = t.by(__.select(k).count(), s.descending() ? Order.asc : Order.desc)
+                            .by(__.coalesce(__.select(k).choose(ofType(GType.STRING), __.constant(0),
+                                    __.choose(ofType(GType.BOOLEAN), __.constant(1), __.constant(2))), __.constant(-1)), dir)
+                            .by(__.coalesce(__.select(k), __.constant(0)), dir);
                 }
             }
             if (limit >= 0) return t.range(skip, limit > Long.MAX_VALUE - skip ? -1 : skip + limit);
@@ -464,20 +509,36 @@ final class ProjectionPushdown {
             } finally {
                 Matcher.closeQuietly(t);
             }
-            if (sort != null && hasChecks()) {
+            if (sort != null && keyChecks()) {
                 Map<?, ?> m = (Map<?, ?>) results.get(0);
                 if (((Number) m.get("bad")).longValue() > 0) return null;
                 results = new ArrayList<>((List<?>) m.get("rows"));
             }
             List<Row> out = new ArrayList<>(results.size());
+            boolean groupMap = hasKeys() && sort == null && cols.stream().noneMatch(c -> c.kind() == Kind.KEY && c.key() == null);
             for (Object r : results) {
+                if (groupMap) {
+                    for (Map.Entry<?, ?> e : ((Map<?, ?>) r).entrySet()) {
+                        control.check();
+                        Row row = row((Map<?, ?>) e.getKey(), e.getValue());
+                        if (row == null) return null;
+                        out.add(row);
+                    }
+                    continue;
+                }
                 control.check();
-                Row row = row((Map<?, ?>) r);
+                Row row = hasKeys() ? row((Map<?, ?>) r, ((Map<?, ?>) r).get("v")) : row(Map.of(), r);
                 if (row == null) return null;
                 out.add(row);
             }
             TAKEN.incrementAndGet();
             return out;
+        }
+
+        /** The client's form of {@link #keyCheck}: true when Java equality on the key value is openCypher's. */
+        private static boolean vouched(Object key) {
+            if (key instanceof Double d) return d - Math.floor(d) != 0;
+            return key == null || key instanceof Long || key instanceof String || key instanceof Boolean;
         }
 
         private static boolean stopped(Throwable e, RunControl control) {
@@ -488,8 +549,16 @@ final class ProjectionPushdown {
             return false;
         }
 
-        private Row row(Map<?, ?> m) {
-            Object bad = m.get("bad");
+        /**
+         * One output row from a group's key values ({@code k0..}, absent for null) and its value: the count
+         * itself ({@link #singleCount}) or the map of partial results; null when a check failed.
+         */
+        private Row row(Map<?, ?> keys, Object value) {
+            Object bad = keys.get("bad");
+            if (bad != null && ((Number) bad).longValue() > 0) return null;
+            int single = singleCount();
+            Map<?, ?> m = single >= 0 || !aggregating() ? Map.of() : (Map<?, ?>) value;
+            bad = m.get("bad");
             if (bad != null && ((Number) bad).longValue() > 0) return null;
             Map<String, Object> values = new LinkedHashMap<>();
             int key = 0;
@@ -498,8 +567,13 @@ final class ProjectionPushdown {
                 String a = "a" + i;
                 Object v;
                 switch (c.kind()) {
-                    case KEY -> v = c.key() == null ? element(c, m.get("k" + key++)) : first(m.get("k" + key++));
-                    case COUNT -> v = c.distinct() && c.key() != null ? (long) distinct((List<?>) m.get(a)).size()
+                    case KEY -> {
+                        Object k = keys.get("k" + key++);
+                        if (c.key() != null && !vouched(k)) return null;
+                        v = c.key() == null ? element(c, k) : Values.normalize(k);
+                    }
+                    case COUNT -> v = i == single ? ((Number) value).longValue()
+                            : c.distinct() && c.key() != null ? (long) distinct((List<?>) m.get(a)).size()
                             : ((Number) m.get(a)).longValue();
                     case COLLECT -> {
                         List<Object> l = new ArrayList<>();

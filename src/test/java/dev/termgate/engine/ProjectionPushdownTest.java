@@ -54,7 +54,7 @@ class ProjectionPushdownTest {
     void countOfALabelIsOneNumberFromTheGraph() {
         Plan p = plan("MATCH (v:Vessel) RETURN count(v)");
         String t = traversal(p);
-        assertTrue(t.contains(".fold().project('a0').by(__.unfold().count())"), p.render());
+        assertTrue(t.endsWith(".as('n0').count()"), p.render());
         assertEquals(List.of(), client(p), p.render());
     }
 
@@ -63,7 +63,7 @@ class ProjectionPushdownTest {
         String q = "MATCH (p:Port)<-[:AT_PORT]-(c:PortCall) RETURN p.name, count(c) ORDER BY count(c) DESC LIMIT 3";
         Plan p = plan(q);
         String t = traversal(p);
-        for (String step : List.of(".group().by(", ".count()", ".order().by(__.select('a1'), Order.desc)", ".range(0L, 3L)")) {
+        for (String step : List.of(".groupCount().by(", ".order().by(__.select('v'), Order.desc)", ".range(0L, 3L)")) {
             assertTrue(t.contains(step), step + " missing in\n" + p.render());
         }
         assertEquals(List.of(), client(p), "nothing left for the client:\n" + p.render());
