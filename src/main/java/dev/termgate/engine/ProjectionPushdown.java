@@ -128,20 +128,24 @@ final class ProjectionPushdown {
             cols.add(c);
         }
         boolean aggregating = cols.stream().anyMatch(c -> c.kind() != Kind.KEY);
-        // A plain projection gains nothing from grouping; DISTINCT is a grouping with no aggregates.
-        if (!aggregating && !p.distinct()) return null;
-
         List<Sort> sort = new ArrayList<>();
         for (Clause.SortItem s : p.orderBy()) {
             int c = sortColumn(s.expr(), items);
             if (c < 0) { sort = null; break; }
             sort.add(new Sort(c, s.descending()));
         }
+        boolean cut = p.skip().isPresent() || p.limit().isPresent();
+        boolean sortable = sort != null && sort.stream().allMatch(s -> cols.get(s.column()).exactInTraversal());
+        // DISTINCT is a grouping with no aggregates. A plain projection brings back its values, not whole
+        // elements; its ORDER BY may read only projected columns (the client then sorts the projected rows), and
+        // with SKIP/LIMIT it must sort in the traversal, else the client needs every row anyway.
+        boolean plain = !aggregating && !p.distinct();
+        if (plain && (sort == null || cut && !sortable
+                || q.clauses().get(1) instanceof Clause.With w && w.where().isPresent())) return null;
         boolean hasKeys = cols.stream().anyMatch(c -> c.kind() == Kind.KEY);
         // Sorting in the traversal pays only when SKIP or LIMIT then send fewer rows back.
-        boolean orderPushed = hasKeys && sort != null && (p.skip().isPresent() || p.limit().isPresent())
-                && cols.stream().allMatch(c -> c.kind() == Kind.KEY || c.kind() == Kind.COUNT || c.kind() == Kind.COLLECT)
-                && sort.stream().allMatch(s -> cols.get(s.column()).exactInTraversal());
+        boolean orderPushed = hasKeys && sortable && cut
+                && cols.stream().allMatch(c -> c.kind() == Kind.KEY || c.kind() == Kind.COUNT || c.kind() == Kind.COLLECT);
         long skip = 0, limit = -1;
         if (orderPushed) {
             try {
@@ -151,7 +155,7 @@ final class ProjectionPushdown {
                 orderPushed = false; // the client path reports the bad SKIP or LIMIT
             }
         }
-        return new Planned(ex.matcher, plan, pushed, cols, orderPushed ? sort : null, skip, limit);
+        return new Planned(ex.matcher, plan, pushed, cols, plain, orderPushed ? sort : null, skip, limit);
     }
 
     /** Inline property maps of literals: the traversal's has() steps then decide exactly as openCypher's =. */
@@ -250,16 +254,19 @@ final class ProjectionPushdown {
         private final Matcher.PartPlan plan;
         private final List<Matcher.Pushdown> pushed;
         private final List<Col> cols;
+        /** No aggregate and no DISTINCT: one output row per match. */
+        private final boolean plain;
         private final List<Sort> sort;
         private final long skip;
         private final long limit;
 
-        Planned(Matcher matcher, Matcher.PartPlan plan, List<Matcher.Pushdown> pushed, List<Col> cols, List<Sort> sort,
-                long skip, long limit) {
+        Planned(Matcher matcher, Matcher.PartPlan plan, List<Matcher.Pushdown> pushed, List<Col> cols, boolean plain,
+                List<Sort> sort, long skip, long limit) {
             this.matcher = matcher;
             this.plan = plan;
             this.pushed = pushed;
             this.cols = List.copyOf(cols);
+            this.plain = plain;
             this.sort = sort == null ? null : List.copyOf(sort);
             this.skip = skip;
             this.limit = limit;
@@ -316,6 +323,7 @@ final class ProjectionPushdown {
                 for (int i = 0; i < k; i++) all.add("r" + i);
                 t = t.dedup(all.toArray(String[]::new));
             }
+            if (plain) return plainRows(t);
             int single = singleCount();
             if (aggregating() && single < 0) {
                 // fold() drops the path, so the elements the partial results read are first taken out of it.
@@ -360,6 +368,65 @@ final class ProjectionPushdown {
             return t.fold().project("bad", "rows")
                     .by(__.unfold().select("bad").is(P.gt(0L)).count())
                     .by(ordered(__.unfold()).fold());
+        }
+
+        /**
+         * One row of projected values per match; with ORDER BY and SKIP/LIMIT, sorted and cut here. Rows whose
+         * sort values Gremlin orders unlike openCypher (lists, temporals, numbers too large to compare exactly)
+         * sort first, so that any of them is among the rows sent back and the client path takes over; SKIP is
+         * then left to the client, after that check.
+         */
+        @SuppressWarnings({"unchecked", "rawtypes"})
+        private GraphTraversal plainRows(GraphTraversal t) {
+            boolean checks = sort != null && !sort.isEmpty();
+            if (checks) {
+                t = t.order().by(badSortValues(), Order.desc);
+                for (Sort s : sort) t = sortKey(t, plainValue(cols.get(s.column())), s.descending());
+                if (limit >= 0) t = t.limit(limit > Long.MAX_VALUE - skip ? Long.MAX_VALUE : skip + limit);
+            } else if (sort != null) {
+                t = limit >= 0 ? t.range(skip, limit > Long.MAX_VALUE - skip ? -1 : skip + limit) : t.skip(skip);
+            }
+            List<String> names = new ArrayList<>();
+            for (int i = 0; i < cols.size(); i++) names.add("c" + i);
+            if (checks) names.add("bad");
+            t = t.project(names.get(0), names.subList(1, names.size()).toArray(String[]::new));
+            for (Col c : cols) t = c.key() == null ? t.by(__.select(c.label()).elementMap()) : t.by(plainValue(c));
+            return checks ? t.by(badSortValues()) : t;
+        }
+
+        /** 1 when a sort value of the row is one Gremlin would not order as openCypher does, else 0. */
+        @SuppressWarnings("rawtypes")
+        private GraphTraversal badSortValues() {
+            List<GraphTraversal> checks = new ArrayList<>();
+            for (Sort s : sort) checks.add(sortCheck(plainValue(cols.get(s.column()))));
+            return __.union(checks.toArray(GraphTraversal[]::new)).limit(1).count();
+        }
+
+        @SuppressWarnings("rawtypes")
+        private static GraphTraversal plainValue(Col c) {
+            return __.select(c.label()).values(c.key());
+        }
+
+        /** Passes a sort value Gremlin would not order as openCypher does. */
+        @SuppressWarnings("rawtypes")
+        private static GraphTraversal sortCheck(GraphTraversal value) {
+            return value.or(__.not(ofType(GType.NUMBER, GType.STRING, GType.BOOLEAN)),
+                    ofType(GType.NUMBER).is(P.outside(-9.0e15, 9.0e15)));
+        }
+
+        /**
+         * One ORDER BY key with openCypher's order: null after every value ascending (first descending), then
+         * strings before booleans before numbers, then the values (one type by then, so Gremlin compares them as
+         * openCypher does). {@code value} gives zero or one value.
+         */
+        @SuppressWarnings({"unchecked", "rawtypes"})
+        private static GraphTraversal sortKey(GraphTraversal t, GraphTraversal value, boolean descending) {
+            Order dir = descending ? Order.desc : Order.asc;
+            GraphTraversal.Admin v = value.asAdmin();
+            return t.by(v.clone().count(), descending ? Order.asc : Order.desc)
+                    .by(__.coalesce(((GraphTraversal) v.clone()).choose(ofType(GType.STRING), __.constant(0),
+                            __.choose(ofType(GType.BOOLEAN), __.constant(1), __.constant(2))), __.constant(-1)), dir)
+                    .by(__.coalesce(v.clone(), __.constant(0)), dir);
         }
 
         private List<String> keyNames() {
@@ -458,11 +525,7 @@ final class ProjectionPushdown {
             return (min ? values.min() : values.max()).fold();
         }
 
-        /**
-         * ORDER BY with openCypher's order: per sort key, null after every value ascending (first descending),
-         * then strings before booleans before numbers, then the values (one type by then, so Gremlin compares
-         * them as openCypher does); then SKIP and LIMIT.
-         */
+        /** ORDER BY over the groups (see {@link #sortKey}), then SKIP and LIMIT. */
         @SuppressWarnings({"unchecked", "rawtypes"})
         private GraphTraversal ordered(GraphTraversal t) {
             if (!sort.isEmpty()) {
@@ -474,11 +537,7 @@ final class ProjectionPushdown {
                         t = t.by(singleCount() >= 0 ? __.select("v") : __.select("v").select("a" + s.column()), dir);
                         continue;
                     }
-                    String k = "k" + keyIndex(s.column());
-                    t = t.by(__.select(k).count(), s.descending() ? Order.asc : Order.desc)
-                            .by(__.coalesce(__.select(k).choose(ofType(GType.STRING), __.constant(0),
-                                    __.choose(ofType(GType.BOOLEAN), __.constant(1), __.constant(2))), __.constant(-1)), dir)
-                            .by(__.coalesce(__.select(k), __.constant(0)), dir);
+                    t = sortKey(t, __.select("k" + keyIndex(s.column())), s.descending());
                 }
             }
             if (limit >= 0) return t.range(skip, limit > Long.MAX_VALUE - skip ? -1 : skip + limit);
@@ -509,6 +568,7 @@ final class ProjectionPushdown {
             } finally {
                 Matcher.closeQuietly(t);
             }
+            if (plain) return plainOut(results, control);
             if (sort != null && keyChecks()) {
                 Map<?, ?> m = (Map<?, ?>) results.get(0);
                 if (((Number) m.get("bad")).longValue() > 0) return null;
@@ -531,6 +591,26 @@ final class ProjectionPushdown {
                 if (row == null) return null;
                 out.add(row);
             }
+            TAKEN.incrementAndGet();
+            return out;
+        }
+
+        private List<Row> plainOut(List<Object> results, RunControl control) {
+            List<Row> out = new ArrayList<>(results.size());
+            for (Object r : results) {
+                control.check();
+                Map<?, ?> m = (Map<?, ?>) r;
+                Object bad = m.get("bad");
+                if (bad != null && ((Number) bad).longValue() > 0) return null;
+                Map<String, Object> values = new LinkedHashMap<>();
+                for (int i = 0; i < cols.size(); i++) {
+                    Col c = cols.get(i);
+                    values.put(c.name(), c.key() == null ? element(c, m.get("c" + i)) : Values.normalize(m.get("c" + i)));
+                }
+                out.add(Row.of(values));
+            }
+            boolean skipHere = sort != null && !sort.isEmpty();
+            if (skipHere) out = new ArrayList<>(out.subList((int) Math.min(skip, out.size()), out.size()));
             TAKEN.incrementAndGet();
             return out;
         }

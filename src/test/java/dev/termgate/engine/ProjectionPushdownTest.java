@@ -78,6 +78,17 @@ class ProjectionPushdownTest {
     }
 
     @Test
+    void aPlainProjectionSortsAndCutsInTheTraversal() {
+        Plan p = plan("MATCH (v:Vessel)-[:OPERATED_BY]->(c:Carrier) RETURN v.name, c.name ORDER BY c.name DESC, v.name LIMIT 3");
+        String t = traversal(p);
+        for (String step : List.of(".order().by(", ".limit(3L)", ".project('c0', 'c1', 'bad')")) {
+            assertTrue(t.contains(step), step + " missing in\n" + p.render());
+        }
+        assertFalse(t.contains("elementMap"), "only the projected values come back:\n" + p.render());
+        assertEquals(List.of(), client(p), p.render());
+    }
+
+    @Test
     void ineligibleProjectionsKeepTheClientSteps() {
         for (String q : List.of(
                 "MATCH (v:Vessel) RETURN CASE WHEN v.grossTonnage > 50000 THEN 'big' ELSE 'small' END AS size, count(v)",
@@ -85,7 +96,8 @@ class ProjectionPushdownTest {
                 "MATCH (v:Vessel) RETURN count(v) + 1",
                 "MATCH (v:Vessel)-[:OPERATED_BY*1..2]->(c) RETURN count(c)",
                 "MATCH (v:Voyage) WHERE v.departureDate >= date('2024-01-01') RETURN count(v)",
-                "MATCH (v:Vessel) RETURN v.name ORDER BY v.name LIMIT 3")) {
+                "MATCH (v:Vessel) RETURN v.name ORDER BY v.grossTonnage LIMIT 3",
+                "MATCH (v:Vessel) RETURN v ORDER BY v LIMIT 3")) {
             Plan p = plan(q);
             assertTrue(client(p).stream().anyMatch(s -> s.clause().equals("RETURN")), q + "\n" + p.render());
             assertFalse(traversal(p).contains(".group()") || traversal(p).contains(".fold()"), q + "\n" + p.render());
@@ -98,7 +110,9 @@ class ProjectionPushdownTest {
                 "MATCH (v:Vessel) RETURN count(v)",
                 "MATCH (p:Port)<-[:AT_PORT]-(c:PortCall) RETURN p.name, count(c) ORDER BY count(c) DESC, p.name LIMIT 3",
                 "MATCH (s:Shipment) RETURN s.currency, avg(s.declaredValue) AS avgValue, count(s) AS shipments",
-                "MATCH (t:Terminal)-[:LOCATED_IN]->(p:Port) RETURN p.name, count(t) AS n, min(t.name), max(t.name) ORDER BY n DESC, p.name")) {
+                "MATCH (t:Terminal)-[:LOCATED_IN]->(p:Port) RETURN p.name, count(t) AS n, min(t.name), max(t.name) ORDER BY n DESC, p.name",
+                "MATCH (v:Vessel)-[:OPERATED_BY]->(c:Carrier) RETURN v.name, c.name ORDER BY c.name DESC, v.name SKIP 2 LIMIT 5",
+                "MATCH (v:Vessel) RETURN v, v.grossTonnage AS t ORDER BY t")) {
             long before = ProjectionPushdown.TAKEN.get();
             Result pushed = demo.run(request(q));
             assertEquals(before + 1, ProjectionPushdown.TAKEN.get(), "not pushed: " + q);
