@@ -4,6 +4,7 @@ import com.google.gson.JsonObject;
 import dev.termgate.translate.Answer;
 import dev.termgate.translate.AnswerJson;
 import dev.termgate.translate.Asker;
+import dev.termgate.translate.Outcome;
 import dev.termgate.translate.RunLimits;
 import dev.termgate.translate.ServiceFailure;
 
@@ -12,16 +13,19 @@ import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
+import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.concurrent.ThreadFactory;
+import java.util.concurrent.ThreadPoolExecutor;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.concurrent.atomic.AtomicReference;
 
 /**
- * Asks the unfinished questions of a batch with a fixed number of workers and records each result as soon as
- * it is complete. A question whose model call keeps failing after the retries is left unfinished (the next run
+ * Asks the unfinished questions of a batch, {@code jobs} of them at a time, runs the accepted queries and records
+ * each result as soon as it is complete. A question whose model call keeps failing after the retries is left unfinished (the next run
  * asks it again); a refused key or an unknown model stops the whole run, since every question would fail alike.
  */
 public final class BatchRun {
@@ -63,24 +67,25 @@ public final class BatchRun {
         AtomicReference<ServiceFailure> stop = new AtomicReference<>();
         AtomicReference<String> lastFailure = new AtomicReference<>();
         AtomicReference<IOException> writeError = new AtomicReference<>();
-        ExecutorService pool = Executors.newFixedThreadPool(jobs, r -> {
-            Thread t = new Thread(r, "termgate-batch");
-            t.setDaemon(true);
-            return t;
-        });
+        // The model is the scarce resource: each of the `jobs` askers hands the run and the writing of its
+        // answer to a finisher and asks the next question at once. When every finisher is busy and their
+        // queue is full, the asker finishes the answer itself, so a slow graph slows the asking down instead
+        // of piling up answers.
+        ExecutorService askers = Executors.newFixedThreadPool(jobs, daemon("termgate-batch"));
+        ThreadPoolExecutor finishers = new ThreadPoolExecutor(jobs, jobs, 0, TimeUnit.MILLISECONDS,
+                new ArrayBlockingQueue<>(jobs), daemon("termgate-batch-run"), new ThreadPoolExecutor.CallerRunsPolicy());
+        List<Future<?>> finishing = java.util.Collections.synchronizedList(new ArrayList<>());
         try {
-            List<Future<?>> futures = new ArrayList<>();
+            List<Future<?>> asking = new ArrayList<>();
             for (BatchQuestion q : todo) {
-                futures.add(pool.submit(() -> {
+                asking.add(askers.submit(() -> {
                     if (stop.get() != null || writeError.get() != null) {
                         unfinished.incrementAndGet();
                         return null;
                     }
+                    Outcome outcome;
                     try {
-                        Answer a = asker.ask(q.question(), limits);
-                        log.append(record(q, a, withRows));
-                        (a.outcome().valid() ? valid : invalid).incrementAndGet();
-                        progress.finishedOne();
+                        outcome = asker.loop().translate(q.question());
                     } catch (ServiceFailure f) {
                         unfinished.incrementAndGet();
                         progress.failedOne();
@@ -88,27 +93,52 @@ public final class BatchRun {
                         if (f.kind() == ServiceFailure.Kind.AUTHENTICATION || f.kind() == ServiceFailure.Kind.MODEL_NOT_FOUND) {
                             stop.compareAndSet(null, f);
                         }
-                    } catch (IOException e) {
-                        unfinished.incrementAndGet();
-                        writeError.compareAndSet(null, e);
+                        return null;
                     }
+                    finishing.add(finishers.submit(() -> {
+                        try {
+                            Answer a = asker.finish(outcome, limits);
+                            log.append(record(q, a, withRows));
+                            (a.outcome().valid() ? valid : invalid).incrementAndGet();
+                            progress.finishedOne();
+                        } catch (IOException e) {
+                            unfinished.incrementAndGet();
+                            writeError.compareAndSet(null, e);
+                        }
+                        return null;
+                    }));
                     return null;
                 }));
             }
-            for (Future<?> f : futures) {
-                try {
-                    f.get();
-                } catch (java.util.concurrent.ExecutionException e) {
-                    throw new IllegalStateException("a batch worker failed", e.getCause());
-                }
-            }
+            awaitAll(asking);
+            awaitAll(List.copyOf(finishing));
         } finally {
-            pool.shutdownNow();
-            pool.awaitTermination(5, TimeUnit.SECONDS);
+            askers.shutdownNow();
+            finishers.shutdownNow();
+            askers.awaitTermination(5, TimeUnit.SECONDS);
+            finishers.awaitTermination(5, TimeUnit.SECONDS);
         }
         if (writeError.get() != null) throw writeError.get();
         return new Summary(valid.get() + invalid.get(), valid.get(), invalid.get(), skipped, unfinished.get(),
                 Duration.ofNanos(System.nanoTime() - t0), Optional.ofNullable(stop.get()), Optional.ofNullable(lastFailure.get()));
+    }
+
+    private static void awaitAll(List<Future<?>> futures) throws InterruptedException {
+        for (Future<?> f : futures) {
+            try {
+                f.get();
+            } catch (java.util.concurrent.ExecutionException e) {
+                throw new IllegalStateException("a batch worker failed", e.getCause());
+            }
+        }
+    }
+
+    private static ThreadFactory daemon(String name) {
+        return r -> {
+            Thread t = new Thread(r, name);
+            t.setDaemon(true);
+            return t;
+        };
     }
 
     /** The JSON line of one question: its id and place first, then the answer's fields. */

@@ -23,7 +23,16 @@ public final class Asker {
      * @throws InterruptedException when cancelled
      */
     public Answer ask(String question, RunLimits limits) throws InterruptedException {
-        Outcome outcome = loop.translate(question);
+        return finish(loop.translate(question), limits);
+    }
+
+    /**
+     * The second half of {@link #ask}: runs the query of a translation the gate accepted (nothing otherwise), so
+     * that a caller can run it on another thread while the model is asked the next question.
+     *
+     * @throws InterruptedException when cancelled
+     */
+    public Answer finish(Outcome outcome, RunLimits limits) throws InterruptedException {
         if (outcome.accepted().isEmpty()) return new Answer(outcome, Optional.empty(), Duration.ZERO);
         long t0 = System.nanoTime();
         RunResult rows = run(outcome.accepted().get(), limits);
