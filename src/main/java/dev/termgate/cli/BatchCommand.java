@@ -6,8 +6,8 @@ import dev.termgate.batch.Progress;
 import dev.termgate.batch.QuestionFile;
 import dev.termgate.batch.ResultLog;
 import dev.termgate.translate.Asker;
-import dev.termgate.translate.CardPrefetch;
 import dev.termgate.translate.Pipeline;
+import dev.termgate.translate.PipelineSpec;
 import dev.termgate.translate.RunLimits;
 import dev.termgate.translate.TranslationLoop;
 import dev.termgate.translate.Translator;
@@ -82,7 +82,11 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
                 err.println("termgate: all " + qs.questions().size() + " questions already have a result in " + out);
                 return Exit.OK;
             }
-            Pipeline pipeline = openPipeline(err);
+            // The offline interpreter reads no card (Translator.readsCard): only a model's cards are built ahead.
+            Optional<PipelineSpec.CardsAhead> ahead = settings.spec().offline() ? Optional.empty()
+                    : Optional.of(new PipelineSpec.CardsAhead(todo.stream().map(BatchQuestion::question).toList(),
+                    PREFETCH_PER_JOB * jobs));
+            Pipeline pipeline = openPipeline(err, ahead);
             try {
                 return run(pipeline, AskWiring.translator(settings, prompts, model.attempts, pipeline), qs, todo, log, limits, err);
             } finally {
@@ -95,26 +99,22 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
 
     private int run(Pipeline pipeline, Translator translator, QuestionFile.Questions qs, List<BatchQuestion> todo, ResultLog log,
                     RunLimits limits, PrintWriter err) throws IOException, InterruptedException {
-        // Cards are built ahead on their own thread while the workers wait for the model.
-        List<String> ahead = translator.readsCard() ? todo.stream().map(BatchQuestion::question).toList() : List.of();
-        try (CardPrefetch cards = new CardPrefetch(pipeline.cards(), ahead, PREFETCH_PER_JOB * jobs)) {
-            Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), cards, model.attempts),
-                    pipeline.runner());
-            BatchRun.Summary s;
-            try (Progress progress = new Progress(err, System.console() != null, todo.size(), !noProgress)) {
-                s = new BatchRun(asker, limits, jobs, withRows).run(qs.questions(), log, progress);
-            }
-            err.printf("termgate: %d asked (%d valid, %d without a valid query), %d already done, %d left without a result, %.1f s%n",
-                    s.asked(), s.valid(), s.invalid(), s.skipped(), s.unfinished(), s.elapsed().toMillis() / 1000.0);
-            if (s.stoppedBy().isPresent()) {
-                throw AskWiring.failed(s.stoppedBy().get());
-            }
-            if (s.unfinished() > 0) {
-                throw new UserError(Exit.SERVICE, s.unfinished() + " question(s) have no result because the model service failed ("
-                        + s.lastFailure().orElse("no detail") + "); run the same command again to finish them");
-            }
-            return Exit.OK;
+        Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts),
+                pipeline.runner());
+        BatchRun.Summary s;
+        try (Progress progress = new Progress(err, System.console() != null, todo.size(), !noProgress)) {
+            s = new BatchRun(asker, limits, jobs, withRows).run(qs.questions(), log, progress);
         }
+        err.printf("termgate: %d asked (%d valid, %d without a valid query), %d already done, %d left without a result, %.1f s%n",
+                s.asked(), s.valid(), s.invalid(), s.skipped(), s.unfinished(), s.elapsed().toMillis() / 1000.0);
+        if (s.stoppedBy().isPresent()) {
+            throw AskWiring.failed(s.stoppedBy().get());
+        }
+        if (s.unfinished() > 0) {
+            throw new UserError(Exit.SERVICE, s.unfinished() + " question(s) have no result because the model service failed ("
+                    + s.lastFailure().orElse("no detail") + "); run the same command again to finish them");
+        }
+        return Exit.OK;
     }
 
     private QuestionFile.Questions readQuestions() {

@@ -43,7 +43,7 @@ public final class GraphOptions {
         GraphSchema ontologySchema = ontology.schema(err);
         GraphSchema schema = schemaFree ? GraphSchema.empty() : ontologySchema;
         return new PipelineSpec(schema, schemaFree, ontologySchema, graphs, Optional.ofNullable(remote), traversalSource,
-                cardBudget, d -> warn(err, d));
+                cardBudget, d -> warn(err, d), Optional.empty());
     }
 
     RunLimits limits() {

@@ -1,10 +1,12 @@
 package dev.termgate.cli;
 
 import dev.termgate.translate.Pipeline;
+import dev.termgate.translate.PipelineSpec;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Spec;
 
 import java.io.PrintWriter;
+import java.util.Optional;
 
 /**
  * What the commands that ask questions (ask, shell, batch, eval) share: the model, ontology, graph and card-budget
@@ -27,6 +29,12 @@ abstract class QuestionCommand {
 
     /** Opens the pipeline the options name; problems loading the graph are told on {@code err}. */
     Pipeline openPipeline(PrintWriter err) {
-        return AskWiring.open(factory, graph.spec(ontology, budget.tokens(), err));
+        return openPipeline(err, Optional.empty());
+    }
+
+    /** As {@link #openPipeline(PrintWriter)}, with the cards of the questions to come built ahead. */
+    Pipeline openPipeline(PrintWriter err, Optional<PipelineSpec.CardsAhead> ahead) {
+        PipelineSpec spec = graph.spec(ontology, budget.tokens(), err);
+        return AskWiring.open(factory, ahead.map(spec::withCardsAhead).orElse(spec));
     }
 }

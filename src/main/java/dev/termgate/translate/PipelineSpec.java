@@ -20,10 +20,11 @@ import java.util.function.Consumer;
  * @param traversalSource the server's traversal source
  * @param cardBudget      token budget of a pruned card
  * @param loadProblems    told about what loading the graph reported (unknown terms, bad values)
+ * @param cardsAhead      questions whose cards the pipeline starts building at once, while the graph loads
  */
 public record PipelineSpec(GraphSchema schema, boolean schemaFree, GraphSchema importSchema, List<Path> graphs,
                            Optional<String> remote, String traversalSource, int cardBudget,
-                           Consumer<Diagnostic> loadProblems) {
+                           Consumer<Diagnostic> loadProblems, Optional<CardsAhead> cardsAhead) {
     public static final int DEFAULT_BUDGET = 1_500;
     public static final String DEFAULT_TRAVERSAL_SOURCE = "g";
 
@@ -31,9 +32,25 @@ public record PipelineSpec(GraphSchema schema, boolean schemaFree, GraphSchema i
         graphs = List.copyOf(graphs);
     }
 
+    /**
+     * The questions a batch will ask, in order, and how many of their cards may wait built: the pipeline's card
+     * source then builds them ahead (see {@link CardPrefetch}).
+     */
+    public record CardsAhead(List<String> questions, int window) {
+        public CardsAhead {
+            questions = List.copyOf(questions);
+            if (window < 1) throw new IllegalArgumentException("window must be at least 1");
+        }
+    }
+
+    public PipelineSpec withCardsAhead(CardsAhead ahead) {
+        return new PipelineSpec(schema, schemaFree, importSchema, graphs, remote, traversalSource, cardBudget, loadProblems,
+                Optional.of(ahead));
+    }
+
     /** The demo graph (or the graph files given) checked against {@code schema}, with the default card budget. */
     public static PipelineSpec local(GraphSchema schema, List<Path> graphs) {
         return new PipelineSpec(schema, false, schema, graphs, Optional.empty(), DEFAULT_TRAVERSAL_SOURCE,
-                DEFAULT_BUDGET, d -> {});
+                DEFAULT_BUDGET, d -> {}, Optional.empty());
     }
 }

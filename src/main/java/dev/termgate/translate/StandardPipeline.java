@@ -22,8 +22,22 @@ public final class StandardPipeline implements Pipeline.Factory {
     public Pipeline open(PipelineSpec spec) throws Pipeline.PipelineException {
         GraphSchema schema = spec.schema();
         QueryGate gate = StandardGate.forSchema(schema, spec.schemaFree());
-        Engine engine = engine(spec);
-        return new Pipeline(schema, questionCards(schema, spec.cardBudget()), gate, new EngineRunner(engine, schema), engine::close);
+        CardSource cards = questionCards(schema, spec.cardBudget());
+        // Cards asked for ahead start now, on their own thread: the linker, the embedding model and the tokenizer
+        // then load while this thread loads the graph, and the first questions find their cards ready.
+        CardPrefetch ahead = spec.cardsAhead().map(a -> new CardPrefetch(cards, a.questions(), a.window())).orElse(null);
+        Engine engine;
+        try {
+            engine = engine(spec);
+        } catch (Pipeline.PipelineException | RuntimeException e) {
+            if (ahead != null) ahead.close();
+            throw e;
+        }
+        AutoCloseable close = ahead == null ? engine::close : () -> {
+            ahead.close();
+            engine.close();
+        };
+        return new Pipeline(schema, ahead == null ? cards : ahead, gate, new EngineRunner(engine, schema), close);
     }
 
     private static Engine engine(PipelineSpec spec) throws Pipeline.PipelineException {
