@@ -28,6 +28,24 @@ final class AskWiring {
         }
     }
 
+    /**
+     * Rehearses the model client on a spare thread (see {@link dev.termgate.translate.ModelTranslator#rehearse}),
+     * so that it is ready when the pipeline is; nothing for the offline interpreter. A failure here is left to
+     * the real translator to report.
+     */
+    static void rehearseInBackground(ModelSettings settings, Prompts prompts) {
+        if (settings.spec().offline()) return;
+        Thread t = new Thread(() -> {
+            try {
+                dev.termgate.translate.ModelTranslator.rehearse(settings, prompts);
+            } catch (RuntimeException ignored) {
+                // told by the translator made for the real questions
+            }
+        }, "termgate-rehearsal");
+        t.setDaemon(true);
+        t.start();
+    }
+
     static Translator translator(ModelSettings settings, Prompts prompts, int attempts, Pipeline pipeline) {
         // --model offline and no --model: the built-in interpreter, profiling the pipeline's graph.
         if (settings.spec().offline()) return dev.termgate.interpret.OfflineTranslator.forPipeline(pipeline);

@@ -86,6 +86,7 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
             Optional<PipelineSpec.CardsAhead> ahead = settings.spec().offline() ? Optional.empty()
                     : Optional.of(new PipelineSpec.CardsAhead(todo.stream().map(BatchQuestion::question).toList(),
                     PREFETCH_PER_JOB * jobs));
+            AskWiring.rehearseInBackground(settings, prompts);
             Pipeline pipeline = openPipeline(err, ahead);
             try {
                 return run(pipeline, AskWiring.translator(settings, prompts, model.attempts, pipeline), qs, todo, log, limits, err);

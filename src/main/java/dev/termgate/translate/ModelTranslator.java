@@ -4,6 +4,7 @@ import dev.langchain4j.data.message.AiMessage;
 import dev.langchain4j.data.message.ChatMessage;
 import dev.langchain4j.data.message.SystemMessage;
 import dev.langchain4j.data.message.UserMessage;
+import dev.langchain4j.http.client.HttpClientBuilder;
 import dev.langchain4j.model.chat.ChatModel;
 import dev.langchain4j.model.chat.response.ChatResponse;
 import dev.langchain4j.model.ollama.OllamaChatModel;
@@ -49,13 +50,29 @@ public final class ModelTranslator implements Translator {
         return new ModelTranslator(chatModel(s), s.spec().toString(), prompts, new Retry(s.maxRetries()), maxAttempts);
     }
 
+    /**
+     * Runs the client side of one exchange (prompts, request JSON, reply reading) against a canned reply of the
+     * same protocol, with no network. The first exchange of a process loads and initialises most of that code,
+     * which took about a second under the first questions of a batch; a caller runs this on a spare thread
+     * while it loads the graph.
+     */
+    public static Reply rehearse(ModelSettings s, Prompts prompts) {
+        ModelTranslator t = new ModelTranslator(chatModel(s, RehearsalHttpClient.builder(s.spec().provider())),
+                s.spec().toString(), prompts, new Retry(0), 1);
+        return t.translate(TranslationRequest.first("rehearsal", "(no card)"));
+    }
+
     static ChatModel chatModel(ModelSettings s) {
+        return chatModel(s, ModelHttpClient.builder(s.timeout(), s.apiKey(), s.spec().model()));
+    }
+
+    private static ChatModel chatModel(ModelSettings s, HttpClientBuilder http) {
         String modelName = s.spec().model();
         return switch (s.spec().provider()) {
             case OPENAI -> {
                 if (s.problem().isPresent()) throw new IllegalArgumentException(s.problem().get());
                 yield OpenAiChatModel.builder()
-                        .httpClientBuilder(ModelHttpClient.builder(s.timeout(), s.apiKey(), modelName))
+                        .httpClientBuilder(http)
                         .baseUrl(s.baseUrl())
                         .apiKey(s.apiKey().map(Secret::reveal).orElse(NO_KEY))
                         .modelName(modelName)
@@ -66,7 +83,7 @@ public final class ModelTranslator implements Translator {
                         .build();
             }
             case OLLAMA -> OllamaChatModel.builder()
-                    .httpClientBuilder(ModelHttpClient.builder(s.timeout(), s.apiKey(), modelName))
+                    .httpClientBuilder(http)
                     .baseUrl(s.baseUrl())
                     .modelName(modelName)
                     .timeout(s.timeout())

@@ -22,6 +22,7 @@ public final class StandardPipeline implements Pipeline.Factory {
     public Pipeline open(PipelineSpec spec) throws Pipeline.PipelineException {
         GraphSchema schema = spec.schema();
         QueryGate gate = StandardGate.forSchema(schema, spec.schemaFree());
+        primeInBackground(gate);
         CardSource cards = questionCards(schema, spec.cardBudget());
         // Cards asked for ahead start now, on their own thread: the linker, the embedding model and the tokenizer
         // then load while this thread loads the graph, and the first questions find their cards ready.
@@ -38,6 +39,20 @@ public final class StandardPipeline implements Pipeline.Factory {
             engine.close();
         };
         return new Pipeline(schema, ahead == null ? cards : ahead, gate, new EngineRunner(engine, schema), close);
+    }
+
+    /**
+     * Checks two small queries on a background thread while the graph loads. The first check of a process builds
+     * the parser's tables and the analyzer's schema index, about a second of work under a lock; without this,
+     * the first replies of a batch all waited for it.
+     */
+    private static void primeInBackground(QueryGate gate) {
+        Thread t = new Thread(() -> {
+            gate.check("MATCH (n) WHERE n.x = 1 RETURN n.y AS y ORDER BY y LIMIT 1");
+            gate.check("MATCH (n RETURN n"); // the error path: the full lexer and the messages
+        }, "termgate-prime");
+        t.setDaemon(true);
+        t.start();
     }
 
     private static Engine engine(PipelineSpec spec) throws Pipeline.PipelineException {
