@@ -41,8 +41,8 @@ import java.util.concurrent.atomic.AtomicLong;
  * </ul>
  * Where Gremlin's value semantics differ from openCypher's the traversal returns exact partial results and
  * the client finishes them, or it checks the values and the client path answers: grouping and DISTINCT
- * compare 1 and 1.0 as different (so a group keyed by an integral float, or by a non-Long integer type, fails
- * the check); {@code sum()} adds floats
+ * compare 1 and 1.0 as different (so two groups that openCypher would make one send the query to the client
+ * path; under a pushed LIMIT, where the client cannot see every group, any integral-float key does); {@code sum()} adds floats
  * left to right and {@code min()} turns mixed numbers into doubles (so integers are summed in the traversal,
  * floats come back as value/multiplicity pairs and are summed exactly, and min/max are taken per type);
  * {@code order()} ranks types and null differently (so sort keys carry openCypher's null and type rank
@@ -437,9 +437,11 @@ final class ProjectionPushdown {
 
         /**
          * Groups are keyed by the stored values, which Gremlin compares with Java equality: exact for integers
-         * (Long), non-integral doubles, strings and booleans, which is openCypher's equivalence on those. An
-         * integral double (2.0, which openCypher groups with 2), a narrower number type (Integer 2 beside Long
-         * 2) or a list, map or temporal value fails the check and the client path answers.
+         * (Long), non-integral doubles, strings and booleans, which is openCypher's equivalence on those. When
+         * LIMIT keeps only some groups, the client cannot see whether two groups are one openCypher group (see
+         * {@link #distinctGroups}), so an integral double (2.0, which openCypher groups with 2), a narrower
+         * number type (Integer 2 beside Long 2) or a list, map or temporal key fails this check in the traversal
+         * and the client path answers.
          */
         @SuppressWarnings("rawtypes")
         private static GraphTraversal keyCheck(String name) {
@@ -591,8 +593,25 @@ final class ProjectionPushdown {
                 if (row == null) return null;
                 out.add(row);
             }
+            if (sort == null && hasKeys() && !distinctGroups(out)) return null;
             TAKEN.incrementAndGet();
             return out;
+        }
+
+        /**
+         * Gremlin groups by Java equality, openCypher by equivalence (2 and 2.0, Integer and Long 2, -0.0 and 0.0
+         * are one group): with every group in hand, the client sees whether two of them are one openCypher group,
+         * and then lets the client path answer. Which of 2 and 2.0 a merged group would show is the client
+         * path's to decide, so the groups are not merged here.
+         */
+        private boolean distinctGroups(List<Row> rows) {
+            Set<List<Object>> seen = new HashSet<>();
+            for (Row r : rows) {
+                List<Object> key = new ArrayList<>();
+                for (Col c : cols) if (c.kind() == Kind.KEY) key.add(Values.groupKey(r.get(c.name())));
+                if (!seen.add(key)) return false;
+            }
+            return true;
         }
 
         private List<Row> plainOut(List<Object> results, RunControl control) {
@@ -613,12 +632,6 @@ final class ProjectionPushdown {
             if (skipHere) out = new ArrayList<>(out.subList((int) Math.min(skip, out.size()), out.size()));
             TAKEN.incrementAndGet();
             return out;
-        }
-
-        /** The client's form of {@link #keyCheck}: true when Java equality on the key value is openCypher's. */
-        private static boolean vouched(Object key) {
-            if (key instanceof Double d) return d - Math.floor(d) != 0;
-            return key == null || key instanceof Long || key instanceof String || key instanceof Boolean;
         }
 
         private static boolean stopped(Throwable e, RunControl control) {
@@ -649,7 +662,6 @@ final class ProjectionPushdown {
                 switch (c.kind()) {
                     case KEY -> {
                         Object k = keys.get("k" + key++);
-                        if (c.key() != null && !vouched(k)) return null;
                         v = c.key() == null ? element(c, k) : Values.normalize(k);
                     }
                     case COUNT -> v = i == single ? ((Number) value).longValue()
