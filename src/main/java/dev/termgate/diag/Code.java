@@ -36,6 +36,7 @@ public enum Code {
     FLOAT_OVERFLOW(1014, Severity.ERROR, "float literal '%s' is too large"),
     PATTERN_NOT_ALLOWED(1015, Severity.ERROR, "a pattern can only be a predicate here: use it in WHERE or inside exists(…), or write a pattern comprehension [%s | …]"),
     UNTERMINATED_NAME(1016, Severity.ERROR, "backtick-quoted name is not terminated"),
+    TOO_COMPLEX(1017, Severity.ERROR, "the query chains too many operators to be read (a chain of about %d AND, OR or NOT is the most); split the condition, or use IN [...] for many alternatives"),
 
     // ---- TG2xxx scope and typing ----
     UNDEFINED_VARIABLE(2001, Severity.ERROR, "variable '%s' is not defined"),

@@ -55,9 +55,26 @@ class BadInputTest {
     void longPrefixOperatorChainsDoNotOverflowTheStack() {
         // no brackets, so the prescan does not see the depth; the result must still be a diagnostic or a tree
         ParseResult r = parser.parse("RETURN " + "NOT ".repeat(20_000) + "true");
-        assertTrue(r.isValid() || r.diagnostics().get(0).code() == Code.TOO_DEEP, r.render());
+        assertTrue(r.isValid() || r.diagnostics().get(0).code() == Code.TOO_COMPLEX, r.render());
         ParseResult minus = parser.parse("RETURN " + "- ".repeat(40_000) + "1");
-        assertTrue(minus.isValid() || minus.diagnostics().get(0).code() == Code.TOO_DEEP);
+        assertTrue(minus.isValid() || minus.diagnostics().get(0).code() == Code.TOO_COMPLEX);
+    }
+
+    @Test
+    void aFlatChainTooLongToReadIsNotCalledNesting() {
+        // 10,000 terms in under 100,000 characters, so that the length limit does not answer first
+        ParseResult r = parser.parse("MATCH (n) WHERE n.a" + " AND n.a".repeat(10_000) + " RETURN n");
+        assertFalse(r.isValid());
+        assertEquals(Code.TOO_COMPLEX, r.diagnostics().get(0).code(), r.render());
+        assertFalse(r.render().contains("nests"), r.render());
+    }
+
+    @Test
+    void aChainAsLongAsTheMessageSaysStillParses() {
+        StringBuilder and = new StringBuilder("MATCH (n) WHERE n.a = 0");
+        for (int i = 1; i < CypherParser.OPERATOR_CHAIN_HINT; i++) and.append(" AND n.a <> ").append(i);
+        ParseResult r = parser.parse(and.append(" RETURN n").toString());
+        assertTrue(r.isValid(), r.render());
     }
 
     @Test
