@@ -561,6 +561,7 @@ final class ProjectionPushdown {
                 while (t.hasNext()) {
                     control.check();
                     results.add(t.next());
+                    control.checkSize(results.size());
                 }
             } catch (EngineException e) {
                 throw e;
@@ -585,6 +586,7 @@ final class ProjectionPushdown {
                         Row row = row((Map<?, ?>) e.getKey(), e.getValue());
                         if (row == null) return null;
                         out.add(row);
+                        control.checkSize(out.size());
                     }
                     continue;
                 }
@@ -592,6 +594,7 @@ final class ProjectionPushdown {
                 Row row = hasKeys() ? row((Map<?, ?>) r, ((Map<?, ?>) r).get("v")) : row(Map.of(), r);
                 if (row == null) return null;
                 out.add(row);
+                control.checkSize(out.size());
             }
             if (sort == null && hasKeys() && !distinctGroups(out)) return null;
             TAKEN.incrementAndGet();
@@ -627,6 +630,7 @@ final class ProjectionPushdown {
                     values.put(c.name(), c.key() == null ? element(c, m.get("c" + i)) : Values.normalize(m.get("c" + i)));
                 }
                 out.add(Row.of(values));
+                control.checkSize(out.size()); // the same bound on rows held as the client path's MATCH
             }
             boolean skipHere = sort != null && !sort.isEmpty();
             if (skipHere) out = new ArrayList<>(out.subList((int) Math.min(skip, out.size()), out.size()));
