@@ -75,7 +75,6 @@ final class ProjectionPushdown {
         return __.or(alternatives);
     }
 
-
     private ProjectionPushdown() {}
 
     enum Kind { KEY, COUNT, COLLECT, SUM, AVG, MIN, MAX }
