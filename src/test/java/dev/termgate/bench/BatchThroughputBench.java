@@ -75,12 +75,14 @@ class BatchThroughputBench {
         long[] first = {0};
         boolean[] measuring = {false};
         List<Long> arrivals = new java.util.ArrayList<>();
+        long[] last = {0};
         String reply = "```cypher\nMATCH (v:Vessel) RETURN v.name\n```";
         try (ScriptedModelServer server = new ScriptedModelServer(ScriptedModelServer.Protocol.OPENAI, seen -> {
             synchronized (first) {
                 if (!measuring[0]) return ScriptedModelServer.answer(reply);
                 if (first[0] == 0) first[0] = System.nanoTime();
                 if (arrivals.size() < 24) arrivals.add((System.nanoTime() - first[0]) / 1_000_000);
+                last[0] = System.nanoTime();
             }
             return ScriptedModelServer.delay(latency, ScriptedModelServer.answer(reply));
         })) {
@@ -97,7 +99,7 @@ class BatchThroughputBench {
             ProcessBuilder pb = new ProcessBuilder("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc",
                     Path.of("termgate").toAbsolutePath().toString(), "batch", "--questions", q.toString(), "--out", out.toString(),
                     "--model", server.modelOption("m"), "--base-url", server.baseUrl(), "--jobs", Integer.toString(jobs),
-                    "--no-progress");
+                    "--no-progress", "--budget", System.getProperty("bench.budget", "1500"));
             pb.environment().put("TERMGATE_CLASSPATH", System.getProperty("java.class.path"));
             // For profiling the batch process, e.g. -Dbench.javaOpts=-XX:StartFlightRecording=filename=batch.jfr
             pb.environment().put("TERMGATE_JAVA_OPTS", System.getProperty("bench.javaOpts", ""));
@@ -143,6 +145,10 @@ class BatchThroughputBench {
                 System.out.println(firsts);
                 System.out.println("first requests arrived at (ms after the first): " + arrivals);
             }
+            // The tail: on JDK 17 a JVM exits about 0.3 s after System.exit when a thread sits in native code (the
+            // HTTP client's selector), which the wall time includes.
+            System.out.printf(Locale.ROOT, "last request arrived %.0f ms after the first; the process ended %.0f ms after its reply%n",
+                    (last[0] - first[0]) / 1e6, (t1 - last[0]) / 1e6 - latency);
             // Means by quarter of the output (the order questions finished): the first shows the cold start.
             double[][] quarter = new double[3][4];
             String[] keys = {"card_ms", "translate_ms", "run_ms"};
