@@ -145,8 +145,8 @@ class BatchThroughputBench {
                 System.out.println(firsts);
                 System.out.println("first requests arrived at (ms after the first): " + arrivals);
             }
-            // The tail: on JDK 17 a JVM exits about 0.3 s after System.exit when a thread sits in native code (the
-            // HTTP client's selector), which the wall time includes.
+            // The tail: the last answer's run and record, then the end of the process (JVM shutdown), which the
+            // wall time includes.
             System.out.printf(Locale.ROOT, "last request arrived %.0f ms after the first; the process ended %.0f ms after its reply%n",
                     (last[0] - first[0]) / 1e6, (t1 - last[0]) / 1e6 - latency);
             // Means by quarter of the output (the order questions finished): the first shows the cold start.
