@@ -71,26 +71,32 @@ class EngineBench {
         try (Engine e = Engines.embedded(g, "bench")) {
             for (String text : List.of(TWO_HOP, CALLS_BY_PORT)) {
                 Request req = Request.of(new CypherParser().parse(text).tree(), text, schema, Limits.defaults());
-                double[] medians = new double[2];
-                for (int mode = 0; mode < 2; mode++) {
-                    PushdownSwitch.enable(mode == 0);
-                    try {
-                        for (int i = 0; i < 10; i++) e.run(req);
-                        long[] run = new long[30];
-                        for (int i = 0; i < run.length; i++) {
-                            long t0 = System.nanoTime();
-                            e.run(req);
-                            run[i] = System.nanoTime() - t0;
-                        }
-                        medians[mode] = median(run) / 1e6;
-                    } finally {
-                        PushdownSwitch.enable(true);
-                    }
-                }
+                double[] medians = pushedAndClientOnly(e, req, 10, 30);
                 System.out.printf("100k nodes: %s%n  projection pushed %.2f ms median, client-only %.2f ms median; "
                         + "load average %.2f%n", text, medians[0], medians[1], loadAverage());
             }
         }
+    }
+
+    /** Median milliseconds of {@code runs} runs after {@code warm} warm-up runs: [0] pushed down, [1] client-only. */
+    private static double[] pushedAndClientOnly(Engine e, Request req, int warm, int runs) {
+        double[] medians = new double[2];
+        for (int mode = 0; mode < 2; mode++) {
+            PushdownSwitch.enable(mode == 0);
+            try {
+                for (int i = 0; i < warm; i++) e.run(req);
+                long[] run = new long[runs];
+                for (int i = 0; i < run.length; i++) {
+                    long t0 = System.nanoTime();
+                    e.run(req);
+                    run[i] = System.nanoTime() - t0;
+                }
+                medians[mode] = median(run) / 1e6;
+            } finally {
+                PushdownSwitch.enable(true);
+            }
+        }
+        return medians;
     }
 
     /** The case the pushdown is for: a remote server, where the client-only path fetches every matched row. */
@@ -100,22 +106,7 @@ class EngineBench {
         Request req = Request.of(new CypherParser().parse(CALLS_BY_PORT).tree(), CALLS_BY_PORT, GraphSchema.empty(),
                 Limits.defaults().withTimeout(java.time.Duration.ofMinutes(5)));
         try (InProcessServer server = InProcessServer.start(g); Engine e = server.engine()) {
-            double[] medians = new double[2];
-            for (int mode = 0; mode < 2; mode++) {
-                PushdownSwitch.enable(mode == 0);
-                try {
-                    for (int i = 0; i < 2; i++) e.run(req);
-                    long[] run = new long[5];
-                    for (int i = 0; i < run.length; i++) {
-                        long t0 = System.nanoTime();
-                        e.run(req);
-                        run[i] = System.nanoTime() - t0;
-                    }
-                    medians[mode] = median(run) / 1e6;
-                } finally {
-                    PushdownSwitch.enable(true);
-                }
-            }
+            double[] medians = pushedAndClientOnly(e, req, 2, 5);
             System.out.printf("100k nodes, in-process Gremlin Server: %s%n  projection pushed %.1f ms median, client-only "
                     + "%.1f ms median; load average %.2f%n", CALLS_BY_PORT, medians[0], medians[1], loadAverage());
         }
