@@ -25,8 +25,9 @@ import java.util.concurrent.atomic.AtomicReference;
 
 /**
  * Asks the unfinished questions of a batch, {@code jobs} of them at a time, runs the accepted queries and records
- * each result as soon as it is complete. A question whose model call keeps failing after the retries is left unfinished (the next run
- * asks it again); a refused key or an unknown model stops the whole run, since every question would fail alike.
+ * each result as soon as it is complete. A question whose model call keeps failing after the retries is left
+ * unfinished (the next run asks it again); a refused key or an unknown model stops the whole run, since every
+ * question would fail alike.
  */
 public final class BatchRun {
 
