@@ -28,7 +28,9 @@ public final class Main implements Runnable {
 
     public static void main(String[] args) {
         System.setProperty("io.netty.noUnsafe", "true");
-        System.exit(run(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true)));
+        int code = run(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true));
+        dev.termgate.translate.Translators.releaseAtExit();
+        System.exit(code);
     }
 
     /** Runs a command line with the given streams; used by {@link #main} and by tests. */

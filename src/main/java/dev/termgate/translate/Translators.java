@@ -7,6 +7,11 @@ public final class Translators {
 
     private Translators() {}
 
+    /** Lets the model clients' threads go, so that the process ends at once; call it just before exiting. */
+    public static void releaseAtExit() {
+        ModelHttpClient.stopSelectors();
+    }
+
     /**
      * @throws IllegalArgumentException when the translator cannot be made as asked (missing key, offline
      *                                  interpreter not in this build); the message is for the user
