@@ -73,19 +73,9 @@ public final class CardPrefetch implements CardSource, AutoCloseable {
     public Card card(String question) {
         Slot slot = ready.remove(question);
         if (slot == null) return cards.card(question);
-        // Not started by the builder (it is behind): build it here. Started or built: wait for it, since building
-        // it twice would only take CPU from the other workers.
-        if (slot.claimed.compareAndSet(false, true)) {
-            fill(slot, question);
-        } else {
-            try {
-                slot.card.join();
-            } catch (RuntimeException ignored) {
-                // rethrown below, with its own type
-            } finally {
-                room.release();
-            }
-        }
+        // Not started by the builder (it is behind): build it here; the builder skips it. Started or built: wait
+        // for it, since building it twice would only take CPU from the other workers.
+        if (slot.claimed.compareAndSet(false, true)) return cards.card(question);
         try {
             return slot.card.get();
         } catch (InterruptedException e) {
@@ -94,6 +84,8 @@ public final class CardPrefetch implements CardSource, AutoCloseable {
         } catch (ExecutionException e) {
             if (e.getCause() instanceof RuntimeException r) throw r;
             throw new IllegalStateException(e.getCause());
+        } finally {
+            room.release();
         }
     }
 

@@ -20,6 +20,18 @@ class CardPrefetchTest {
         return new CardSource.Card("card for " + q, q.length(), List.of(q));
     }
 
+    /** Eight workers ask every question once each, concurrently; each must get its own question's card. */
+    private static void askedByEightWorkers(CardPrefetch prefetch, List<String> questions) throws Exception {
+        ExecutorService pool = Executors.newFixedThreadPool(8);
+        try (CardPrefetch cards = prefetch) {
+            List<Future<Boolean>> checks = new ArrayList<>();
+            for (String q : questions) checks.add(pool.submit(() -> cards.card(q).equals(cardOf(q))));
+            for (Future<Boolean> f : checks) assertTrue(f.get());
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
     @Test
     void everyQuestionGetsItsOwnCardUnderConcurrency() throws Exception {
         List<String> questions = new ArrayList<>();
@@ -29,14 +41,7 @@ class CardPrefetchTest {
             built.incrementAndGet();
             return cardOf(q);
         };
-        ExecutorService pool = Executors.newFixedThreadPool(8);
-        try (CardPrefetch cards = new CardPrefetch(source, questions, 5)) {
-            List<Future<Boolean>> checks = new ArrayList<>();
-            for (String q : questions) checks.add(pool.submit(() -> cards.card(q).equals(cardOf(q))));
-            for (Future<Boolean> f : checks) assertTrue(f.get());
-        } finally {
-            pool.shutdownNow();
-        }
+        askedByEightWorkers(new CardPrefetch(source, questions, 5), questions);
         // Each asking builds at most once: 450 first askings plus 50 repeats, whose card was already taken.
         assertEquals(500, built.get(), "no card was built twice");
     }
@@ -56,14 +61,7 @@ class CardPrefetchTest {
             }
             return cardOf(q);
         };
-        ExecutorService pool = Executors.newFixedThreadPool(8);
-        try (CardPrefetch cards = new CardPrefetch(slow, questions, 32)) {
-            List<Future<Boolean>> checks = new ArrayList<>();
-            for (String q : questions) checks.add(pool.submit(() -> cards.card(q).equals(cardOf(q))));
-            for (Future<Boolean> f : checks) assertTrue(f.get());
-        } finally {
-            pool.shutdownNow();
-        }
+        askedByEightWorkers(new CardPrefetch(slow, questions, 32), questions);
         assertEquals(100, built.get());
     }
 
