@@ -71,10 +71,11 @@ public final class BatchRun {
         // The model is the scarce resource: each of the `jobs` askers hands the run and the writing of its
         // answer to a finisher and asks the next question at once. When every finisher is busy and their
         // queue is full, the asker finishes the answer itself, so a slow graph slows the asking down instead
-        // of piling up answers.
+        // of piling up answers. The queue holds four answers per job: a process's first runs are slow (cold code),
+        // and a queue of one per job could fill with them and leave the askers to run them.
         ExecutorService askers = Executors.newFixedThreadPool(jobs, daemon("termgate-batch"));
         ThreadPoolExecutor finishers = new ThreadPoolExecutor(jobs, jobs, 0, TimeUnit.MILLISECONDS,
-                new ArrayBlockingQueue<>(jobs), daemon("termgate-batch-run"), new ThreadPoolExecutor.CallerRunsPolicy());
+                new ArrayBlockingQueue<>(4 * jobs), daemon("termgate-batch-run"), new ThreadPoolExecutor.CallerRunsPolicy());
         List<Future<?>> finishing = java.util.Collections.synchronizedList(new ArrayList<>());
         try {
             List<Future<?>> asking = new ArrayList<>();

@@ -44,7 +44,7 @@ final class AskWiring {
         if (settings.spec().offline()) return;
         Thread t = new Thread(() -> {
             try {
-                for (int i = 0; i < REHEARSALS; i++) dev.termgate.translate.ModelTranslator.rehearse(settings, prompts);
+                dev.termgate.translate.ModelTranslator.rehearse(settings, prompts, REHEARSALS);
             } catch (RuntimeException ignored) {
                 // told by the translator made for the real questions
             }

@@ -62,7 +62,6 @@ public record ModelSettings(ModelSpec spec, String baseUrl, Optional<Secret> api
         return base.resolve("termgate").resolve("config.properties");
     }
 
-    /** True when the base URL points at this machine, where servers commonly need no key. */
     /** Why these settings cannot reach the model, found before anything costly is loaded; empty when they can. */
     public Optional<String> problem() {
         if (spec.provider() == ModelSpec.Provider.OPENAI && apiKey.isEmpty() && !local()) {
@@ -72,6 +71,7 @@ public record ModelSettings(ModelSpec spec, String baseUrl, Optional<Secret> api
         return Optional.empty();
     }
 
+    /** True when the base URL points at this machine, where servers commonly need no key. */
     public boolean local() {
         try {
             String host = java.net.URI.create(baseUrl).getHost();

@@ -51,22 +51,31 @@ public final class ModelTranslator implements Translator {
     }
 
     /**
-     * Runs the client side of one exchange (prompts, request JSON, reply reading) against a canned reply of the
-     * same protocol, with no network. The first exchange of a process loads and initialises most of that code,
+     * Runs the client side of {@code times} exchanges (prompts, request JSON, the JDK's HTTP client, reply
+     * reading) against a stand-in service of the same protocol on the loopback address, so no request leaves
+     * the process and no key is sent. The first exchanges of a process load and compile most of that code,
      * which took about a second under the first questions of a batch; a caller runs this on a spare thread
      * while it loads the graph.
+     *
+     * @return the last canned reply
+     * @throws ServiceFailure when the loopback exchange fails (the real client will tell its own story)
      */
-    public static Reply rehearse(ModelSettings s, Prompts prompts) {
-        ModelTranslator t = new ModelTranslator(chatModel(s, RehearsalHttpClient.builder(s.spec().provider())),
-                s.spec().toString(), prompts, new Retry(0), 1);
-        return t.translate(TranslationRequest.first("rehearsal", "(no card)"));
+    public static Reply rehearse(ModelSettings s, Prompts prompts, int times) {
+        try (RehearsalServer server = new RehearsalServer(s.spec().provider())) {
+            ModelSettings loopback = new ModelSettings(s.spec(), server.baseUrl(s.spec().provider()), Optional.empty(),
+                    s.timeout(), 0);
+            ModelTranslator t = new ModelTranslator(chatModel(loopback), s.spec().toString(), prompts, new Retry(0), 1);
+            Reply last = null;
+            for (int i = 0; i < times; i++) last = t.translate(TranslationRequest.first("rehearsal", "(no card)"));
+            return last;
+        } catch (java.io.IOException e) {
+            throw new ServiceFailure(ServiceFailure.Kind.FATAL, "no loopback address for the rehearsal: " + e.getMessage(),
+                    Optional.empty());
+        }
     }
 
     static ChatModel chatModel(ModelSettings s) {
-        return chatModel(s, ModelHttpClient.builder(s.timeout(), s.apiKey(), s.spec().model()));
-    }
-
-    private static ChatModel chatModel(ModelSettings s, HttpClientBuilder http) {
+        HttpClientBuilder http = ModelHttpClient.builder(s.timeout(), s.apiKey(), s.spec().model());
         String modelName = s.spec().model();
         return switch (s.spec().provider()) {
             case OPENAI -> {

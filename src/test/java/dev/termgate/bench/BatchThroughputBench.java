@@ -53,6 +53,56 @@ class BatchThroughputBench {
     }
 
     /**
+     * The round trip split in two, by quarter of the run: the server's share (from the request read whole to the
+     * reply written, beyond the scripted latency) and the tool's (from a reply written to the next request read
+     * whole on the same connection: reading the reply, checking the query, writing the next prompt and request).
+     */
+    private static void turnarounds(List<ScriptedModelServer.Exchange> exchanges, long latency) {
+        java.util.Map<Integer, ScriptedModelServer.Exchange> previous = new java.util.HashMap<>();
+        List<ScriptedModelServer.Exchange> byRequest = exchanges.stream()
+                .sorted(java.util.Comparator.comparingLong(ScriptedModelServer.Exchange::requestNanos)).toList();
+        double[] server = new double[4];
+        double[] tool = new double[4];
+        int[] toolCount = new int[4];
+        List<Double> steadyTool = new java.util.ArrayList<>();
+        for (int i = 0; i < byRequest.size(); i++) {
+            var e = byRequest.get(i);
+            int q = i * 4 / byRequest.size();
+            server[q] += (e.repliedNanos() - e.requestNanos()) / 1e6 - latency;
+            var before = previous.put(e.clientPort(), e);
+            if (before != null) {
+                tool[q] += (e.requestNanos() - before.repliedNanos()) / 1e6;
+                toolCount[q]++;
+                if (q > 0) steadyTool.add((e.requestNanos() - before.repliedNanos()) / 1e6);
+            }
+        }
+        int perQuarter = byRequest.size() / 4;
+        System.out.printf(Locale.ROOT, "server's share beyond the latency by quarter: %.1f, %.1f, %.1f, %.1f ms; "
+                        + "tool's share (reply written to next request read) by quarter: %.1f, %.1f, %.1f, %.1f ms; "
+                        + "%d connections%n", server[0] / perQuarter, server[1] / perQuarter, server[2] / perQuarter,
+                server[3] / perQuarter, tool[0] / Math.max(1, toolCount[0]), tool[1] / Math.max(1, toolCount[1]),
+                tool[2] / Math.max(1, toolCount[2]), tool[3] / Math.max(1, toolCount[3]), previous.size());
+        if (!steadyTool.isEmpty()) {
+            java.util.Collections.sort(steadyTool);
+            int k = steadyTool.size();
+            System.out.printf(Locale.ROOT, "tool's share after the first quarter: min %.1f, median %.1f, p90 %.1f, max %.1f ms%n",
+                    steadyTool.get(0), steadyTool.get(k / 2), steadyTool.get(k * 9 / 10), steadyTool.get(k - 1));
+        }
+    }
+
+    /** One line of the CPU timeline: the ticks each thread name used since the last line. */
+    private static String slice(long atMillis, java.util.Map<String, Long> now, java.util.Map<String, Long> before) {
+        StringBuilder line = new StringBuilder(String.format(Locale.ROOT, "  %5d ms:", atMillis));
+        now.entrySet().stream().sorted(java.util.Map.Entry.comparingByKey()).forEach(e -> {
+            long d = e.getValue() - before.getOrDefault(e.getKey(), 0L);
+            if (d > 0) line.append(' ').append(e.getKey().strip()).append('=').append(d);
+        });
+        before.clear();
+        before.putAll(now);
+        return line.toString();
+    }
+
+    /**
      * A model service that has answered before: the scripted server runs in this JVM, and its first answers (class
      * loading, interpreted code) would otherwise be counted against the tool.
      */
@@ -90,6 +140,7 @@ class BatchThroughputBench {
             synchronized (first) {
                 measuring[0] = true;
             }
+            server.forgetExchanges();
             StringBuilder sb = new StringBuilder();
             for (int i = 0; i < n; i++) sb.append("question number ").append(i).append('\n');
             Path q = Files.writeString(dir.resolve("q.txt"), sb.toString());
@@ -107,10 +158,18 @@ class BatchThroughputBench {
             long t0 = System.nanoTime();
             Process p = pb.start();
             java.util.Map<String, Long> threadCpu = new java.util.TreeMap<>();
+            // With bench.detail: CPU by thread name in each half second, to see which work competes when.
+            List<String> timeline = new java.util.ArrayList<>();
+            java.util.Map<String, Long> lastByName = new java.util.HashMap<>();
+            long nextSlice = t0 + 500_000_000L;
             while (!p.waitFor(100, TimeUnit.MILLISECONDS)) {
                 assertTrue(System.nanoTime() - t0 < 300_000_000_000L, "batch did not finish");
                 p.descendants().filter(h -> h.info().command().orElse("").endsWith("java")).findFirst()
                         .ifPresent(h -> threadCpu(h.pid(), threadCpu));
+                if (System.nanoTime() >= nextSlice) {
+                    timeline.add(slice((nextSlice - t0) / 1_000_000, byName(threadCpu), lastByName));
+                    nextSlice += 500_000_000L;
+                }
             }
             long t1 = System.nanoTime();
             String output = Files.readString(log);
@@ -144,7 +203,11 @@ class BatchThroughputBench {
                 }
                 System.out.println(firsts);
                 System.out.println("first requests arrived at (ms after the first): " + arrivals);
+                System.out.println("CPU (1/100 s) by thread in each half second, the first request at "
+                        + (first[0] - t0) / 1_000_000 + " ms:");
+                timeline.forEach(System.out::println);
             }
+            turnarounds(server.exchanges(), latency);
             // The tail: the last answer's run and record, then the end of the process (JVM shutdown), which the
             // wall time includes.
             System.out.printf(Locale.ROOT, "last request arrived %.0f ms after the first; the process ended %.0f ms after its reply%n",

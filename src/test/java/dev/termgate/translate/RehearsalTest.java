@@ -23,7 +23,7 @@ class RehearsalTest {
                 seen -> ScriptedModelServer.answer("MATCH (n) RETURN n"))) {
             ModelSettings s = ModelSettings.resolve(Optional.of(server.modelOption("m")), Optional.of(server.baseUrl()),
                     Optional.of(Duration.ofSeconds(5)), Map.of("TERMGATE_API_KEY", "k"), Optional.empty());
-            Reply canned = ModelTranslator.rehearse(s, Prompts.builtIn());
+            Reply canned = ModelTranslator.rehearse(s, Prompts.builtIn(), 3);
             assertEquals("MATCH (n) RETURN n", canned.text(), "the canned reply reads as the protocol's reply");
             assertEquals(java.util.OptionalInt.of(1), canned.promptTokens());
             assertTrue(server.seen().isEmpty());

@@ -75,6 +75,13 @@ public final class ScriptedModelServer implements AutoCloseable {
         }
     }
 
+    /**
+     * When one exchange happened, as the server saw it: the request read whole, the reply written. Connections are
+     * told apart by the client's port, so that a benchmark can split a round trip into the client's and the
+     * server's share.
+     */
+    public record Exchange(int clientPort, long requestNanos, long repliedNanos) {}
+
     /** What the server does with one request. */
     public sealed interface Action {
         record Answer(String text, int promptTokens, int completionTokens) implements Action {}
@@ -104,6 +111,7 @@ public final class ScriptedModelServer implements AutoCloseable {
     private final HttpServer server;
     private final Protocol protocol;
     private final List<Seen> seen = new CopyOnWriteArrayList<>();
+    private final List<Exchange> exchanges = new CopyOnWriteArrayList<>();
     private volatile Function<Seen, Action> script;
 
     public ScriptedModelServer(Protocol protocol, Function<Seen, Action> script) throws IOException {
@@ -137,9 +145,19 @@ public final class ScriptedModelServer implements AutoCloseable {
         return new ArrayList<>(seen);
     }
 
+    /** Every exchange answered so far, in the order the replies were written. */
+    public List<Exchange> exchanges() {
+        return new ArrayList<>(exchanges);
+    }
+
+    public void forgetExchanges() {
+        exchanges.clear();
+    }
+
     private void handle(HttpExchange x) throws IOException {
         try (x) {
             String body = new String(x.getRequestBody().readAllBytes(), StandardCharsets.UTF_8);
+            long requestNanos = System.nanoTime();
             Seen s = new Seen(x.getRequestURI().getPath(), JsonParser.parseString(body).getAsJsonObject(), x.getRequestHeaders());
             seen.add(s);
             Action a = script.apply(s);
@@ -158,6 +176,7 @@ public final class ScriptedModelServer implements AutoCloseable {
                 x.getResponseHeaders().add("Content-Type", "application/json");
                 send(x, 200, protocol == Protocol.OPENAI ? openAi(s, an) : ollama(s, an));
             }
+            exchanges.add(new Exchange(x.getRemoteAddress().getPort(), requestNanos, System.nanoTime()));
         } catch (IOException e) {
             // the client went away (a time-out test): nothing to answer
         }
