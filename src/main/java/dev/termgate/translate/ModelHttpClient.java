@@ -31,19 +31,7 @@ final class ModelHttpClient implements HttpClient {
     private static final Set<String> RESTRICTED = Set.of("host", "content-length", "connection", "expect", "upgrade");
     private static final int MAX_ERROR_TEXT = 300;
 
-    /**
-     * Clients to spread the calling threads over, one per core at most. A JDK client reads every reply on its
-     * single selector thread; with the replies of a batch's workers arriving together, one client made each wait
-     * for the others' to be read, while the other core idled.
-     */
-    private static final int CLIENTS = Math.max(1, Math.min(8, Runtime.getRuntime().availableProcessors()));
-
-    private final java.net.http.HttpClient[] clients;
-    private final java.util.concurrent.atomic.AtomicInteger nextClient = new java.util.concurrent.atomic.AtomicInteger();
-    /** The client of each calling thread, given out in turn, so that concurrent callers use different ones. */
-    private final ThreadLocal<java.net.http.HttpClient> clientOfThread =
-            ThreadLocal.withInitial(() -> client(nextClient.getAndIncrement()));
-    private final Duration connectTimeout;
+    private final java.net.http.HttpClient http;
     private final Duration readTimeout;
     private final Optional<Secret> key;
     private final String modelName;
@@ -52,32 +40,22 @@ final class ModelHttpClient implements HttpClient {
     private static final Set<Thread> SELECTORS = java.util.concurrent.ConcurrentHashMap.newKeySet();
 
     ModelHttpClient(Duration connectTimeout, Duration readTimeout, Optional<Secret> key, String modelName) {
-        this.clients = new java.net.http.HttpClient[CLIENTS];
-        this.connectTimeout = connectTimeout;
+        Set<Thread> before = Thread.getAllStackTraces().keySet();
+        this.http = java.net.http.HttpClient.newBuilder()
+                .version(java.net.http.HttpClient.Version.HTTP_1_1)
+                .connectTimeout(connectTimeout)
+                .followRedirects(java.net.http.HttpClient.Redirect.NORMAL)
+                // Completion steps run on the client's own selector thread instead of hopping through a pool: a
+                // blocking send then costs fewer thread switches, which on a small, busy machine were a visible
+                // part of each call's time. Nothing that completes a reply here blocks.
+                .executor(Runnable::run)
+                .build();
+        for (Thread t : Thread.getAllStackTraces().keySet()) {
+            if (!before.contains(t) && t.getName().endsWith("SelectorManager")) SELECTORS.add(t);
+        }
         this.readTimeout = readTimeout;
         this.key = key;
         this.modelName = modelName;
-    }
-
-    /** The i-th client (modulo their number), made on first use. */
-    private synchronized java.net.http.HttpClient client(int i) {
-        int k = Math.floorMod(i, clients.length);
-        if (clients[k] == null) {
-            Set<Thread> before = Thread.getAllStackTraces().keySet();
-            clients[k] = java.net.http.HttpClient.newBuilder()
-                    .version(java.net.http.HttpClient.Version.HTTP_1_1)
-                    .connectTimeout(connectTimeout)
-                    .followRedirects(java.net.http.HttpClient.Redirect.NORMAL)
-                    // Completion steps run on the client's own selector thread instead of hopping through a pool:
-                    // a blocking send then costs fewer thread switches, which on a small, busy machine were a
-                    // visible part of each call's time. Nothing that completes a reply here blocks.
-                    .executor(Runnable::run)
-                    .build();
-            for (Thread t : Thread.getAllStackTraces().keySet()) {
-                if (!before.contains(t) && t.getName().endsWith("SelectorManager")) SELECTORS.add(t);
-            }
-        }
-        return clients[k];
     }
 
     /**
@@ -127,7 +105,7 @@ final class ModelHttpClient implements HttpClient {
         }
         HttpResponse<String> response;
         try {
-            response = clientOfThread.get().send(b.build(), HttpResponse.BodyHandlers.ofString(StandardCharsets.UTF_8));
+            response = http.send(b.build(), HttpResponse.BodyHandlers.ofString(StandardCharsets.UTF_8));
         } catch (HttpTimeoutException e) {
             throw new ServiceFailure(ServiceFailure.Kind.RETRIABLE,
                     "no answer from " + host(request) + " within " + seconds(readTimeout), Optional.empty());
