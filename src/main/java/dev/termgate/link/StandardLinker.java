@@ -216,7 +216,9 @@ final class StandardLinker implements SchemaLinker {
                 }
             }
             if (runStart >= 0) out.add(question.substring(runStart, runEnd));
-            return out.stream().distinct().limit(MAX_PHRASES).toList();
+            // A run without a letter (a number, a date, a code) is a value, not a meaning: its embedding only
+            // adds noise to every term's similarity, at the cost of a model inference.
+            return out.stream().filter(StandardLinker::worthEmbedding).distinct().limit(MAX_PHRASES).toList();
         }
 
         private void addValues() {
@@ -591,5 +593,10 @@ final class StandardLinker implements SchemaLinker {
     /** The schema this linker was built for. */
     GraphSchema schema() {
         return schema;
+    }
+
+    /** Whether a phrase may carry a meaning for the embedding model: it has a letter in some script. */
+    static boolean worthEmbedding(String phrase) {
+        return phrase.codePoints().anyMatch(Character::isLetter);
     }
 }

@@ -158,4 +158,15 @@ class StandardLinkerTest {
         assertFalse(linking.ranked().isEmpty());
         assertTrue(linking.notices().stream().anyMatch(n -> n.startsWith("embedding cache not written")), linking.notices().toString());
     }
+
+    /** Runs without a letter are values, not meanings: the linker does not spend a model inference on them. */
+    @Test
+    void phrasesWithoutALetterAreNotEmbedded() {
+        for (String value : List.of("17", "2024-05-01", "12:30", "#4711", "3.5")) {
+            org.junit.jupiter.api.Assertions.assertFalse(StandardLinker.worthEmbedding(value), value);
+        }
+        for (String words : List.of("Valdoria last", "Ostrava", "berth 7", "Ørsund", "港口")) {
+            org.junit.jupiter.api.Assertions.assertTrue(StandardLinker.worthEmbedding(words), words);
+        }
+    }
 }
