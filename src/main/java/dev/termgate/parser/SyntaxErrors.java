@@ -108,8 +108,9 @@ final class SyntaxErrors {
             if (t.getType() == CypherLexer.InvalidNumber && !expects(parser, e, CypherLexer.Identifier)) {
                 return Diagnostic.at(Code.INVALID_NUMBER, span, t.getText());
             }
-            IntervalSet expected = e != null && e.getExpectedTokens() != null ? e.getExpectedTokens()
+            IntervalSet reported = e != null && e.getExpectedTokens() != null ? e.getExpectedTokens()
                     : parser != null ? parser.getExpectedTokens() : new IntervalSet();
+            IntervalSet expected = parser == null ? reported : completeExpected(parser, t, reported);
             RuleContext ctx = e != null && e.getCtx() != null ? e.getCtx() : parser != null ? parser.getContext() : null;
             List<String> words = expectedWords(expected, ctx, parser == null ? null : parser.getVocabulary());
             Diagnostic d = Diagnostic.at(Code.UNEXPECTED_INPUT, span, offending(t), joinOr(words));
@@ -121,6 +122,109 @@ final class SyntaxErrors {
             IntervalSet s = e != null && e.getExpectedTokens() != null ? e.getExpectedTokens()
                     : parser != null ? parser.getExpectedTokens() : null;
             return s != null && s.contains(type);
+        }
+    }
+
+    /**
+     * Tokens that continue something already begun: symbols, the word operators and the words that go on a clause.
+     * ANTLR reports the expected tokens of the state where it noticed an error, which misses what could have
+     * continued an optional part or a loop it had already left ({@code (n:Port RETURN} lacked {@code ':'} and
+     * {@code '|'}; {@code [1, 2} lacked the operators); these are the tokens then worth trying.
+     */
+    private static final IntervalSet CONTINUATIONS = new IntervalSet();
+    /** Tokens (whitespace included) before an error beyond which ANTLR's own expected set is given as it is. */
+    private static final int MAX_TRIAL_PREFIX = 256;
+
+    static {
+        var vocabulary = dev.termgate.parser.antlr.CypherParser.VOCABULARY;
+        for (int type = 1; type <= vocabulary.getMaxTokenType(); type++) {
+            String literal = vocabulary.getLiteralName(type);
+            if (literal != null && !Character.isLetter(literal.charAt(1))) CONTINUATIONS.add(type);
+        }
+        for (int type : new int[] {CypherLexer.AND, CypherLexer.OR, CypherLexer.XOR, CypherLexer.NOT, CypherLexer.IN,
+                CypherLexer.IS, CypherLexer.CONTAINS, CypherLexer.STARTS, CypherLexer.ENDS, CypherLexer.AS,
+                CypherLexer.WHERE, CypherLexer.ORDER, CypherLexer.SKIP_, CypherLexer.LIMIT, CypherLexer.UNION,
+                CypherLexer.THEN, CypherLexer.ELSE, CypherLexer.END, CypherLexer.WHEN, Token.EOF}) {
+            CONTINUATIONS.add(type);
+        }
+    }
+
+    /**
+     * ANTLR's expected tokens at {@code offending}, completed with the {@link #CONTINUATIONS} that can stand
+     * there: each is tried after the text before it and kept when the parse then goes wrong no earlier than the
+     * end of input. Errors only: a few dozen parses of the prefix, so not after {@link #MAX_TRIAL_PREFIX} tokens.
+     */
+    static IntervalSet completeExpected(Parser parser, Token offending, IntervalSet reported) {
+        if (offending.getTokenIndex() > MAX_TRIAL_PREFIX) return reported;
+        org.antlr.v4.runtime.TokenStream in = parser.getInputStream();
+        List<Token> prefix = new ArrayList<>();
+        for (int i = 0; i < offending.getTokenIndex(); i++) {
+            Token x = in.get(i);
+            if (x.getChannel() == Token.DEFAULT_CHANNEL) prefix.add(x);
+        }
+        IntervalSet out = new IntervalSet(reported);
+        for (int type : CONTINUATIONS.subtract(reported).toList()) {
+            if (continues(prefix, type)) out.add(type);
+        }
+        return out;
+    }
+
+    /** Whether {@code prefix} followed by a token of {@code type} is the start of some statement. */
+    private static boolean continues(List<Token> prefix, int type) {
+        List<Token> tokens = new ArrayList<>(prefix.size() + 2);
+        for (Token x : prefix) tokens.add(new org.antlr.v4.runtime.CommonToken(x));
+        tokens.add(new org.antlr.v4.runtime.CommonToken(type, type == Token.EOF ? "<EOF>" : "x"));
+        if (type != Token.EOF) tokens.add(new org.antlr.v4.runtime.CommonToken(Token.EOF, "<EOF>"));
+        for (int i = 0; i < tokens.size(); i++) ((org.antlr.v4.runtime.CommonToken) tokens.get(i)).setTokenIndex(i);
+        var trial = new dev.termgate.parser.antlr.CypherParser(
+                new org.antlr.v4.runtime.CommonTokenStream(new org.antlr.v4.runtime.ListTokenSource(tokens)));
+        trial.removeErrorListeners();
+        TrialStop stop = new TrialStop();
+        trial.setErrorHandler(stop);
+        trial.getInterpreter().setPredictionMode(org.antlr.v4.runtime.atn.PredictionMode.SLL);
+        try {
+            trial.statement();
+            return true;
+        } catch (TrialStop.Stopped stopped) {
+            return stop.at > prefix.size();
+        }
+    }
+
+    /**
+     * Stops a trial parse at its first error and remembers where, without the stack traces of ANTLR's own
+     * exceptions (a trial fails far more often than not).
+     */
+    private static final class TrialStop extends DefaultErrorStrategy {
+        static final class Stopped extends RuntimeException {
+            Stopped() {
+                super(null, null, false, false);
+            }
+        }
+
+        private static final Stopped STOPPED = new Stopped();
+        int at = -1;
+
+        @Override
+        public void recover(Parser recognizer, RecognitionException e) {
+            at = e.getOffendingToken() == null ? recognizer.getCurrentToken().getTokenIndex()
+                    : e.getOffendingToken().getTokenIndex();
+            throw STOPPED;
+        }
+
+        @Override
+        public Token recoverInline(Parser recognizer) {
+            at = recognizer.getCurrentToken().getTokenIndex();
+            throw STOPPED;
+        }
+
+        @Override
+        public void sync(Parser recognizer) {
+            // errors are found by the matching itself; sync's look-ahead would only report them earlier
+        }
+
+        @Override
+        public void reportError(Parser recognizer, RecognitionException e) {
+            recover(recognizer, e);
         }
     }
 
