@@ -8,14 +8,19 @@ import dev.termgate.parser.antlr.CypherParser.PatternContext;
 import dev.termgate.parser.antlr.CypherParser.PatternElementContext;
 import dev.termgate.parser.antlr.CypherParser.PatternPartContext;
 import org.antlr.v4.runtime.BaseErrorListener;
+import org.antlr.v4.runtime.CommonToken;
+import org.antlr.v4.runtime.CommonTokenStream;
 import org.antlr.v4.runtime.DefaultErrorStrategy;
+import org.antlr.v4.runtime.ListTokenSource;
 import org.antlr.v4.runtime.Parser;
 import org.antlr.v4.runtime.RecognitionException;
 import org.antlr.v4.runtime.Recognizer;
 import org.antlr.v4.runtime.RuleContext;
 import org.antlr.v4.runtime.Token;
+import org.antlr.v4.runtime.TokenStream;
 import org.antlr.v4.runtime.Vocabulary;
 import org.antlr.v4.runtime.atn.ATN;
+import org.antlr.v4.runtime.atn.PredictionMode;
 import org.antlr.v4.runtime.misc.IntervalSet;
 import org.antlr.v4.runtime.misc.ParseCancellationException;
 
@@ -156,7 +161,7 @@ final class SyntaxErrors {
      */
     static IntervalSet completeExpected(Parser parser, Token offending, IntervalSet reported) {
         if (offending.getTokenIndex() > MAX_TRIAL_PREFIX) return reported;
-        org.antlr.v4.runtime.TokenStream in = parser.getInputStream();
+        TokenStream in = parser.getInputStream();
         List<Token> prefix = new ArrayList<>();
         for (int i = 0; i < offending.getTokenIndex(); i++) {
             Token x = in.get(i);
@@ -172,16 +177,16 @@ final class SyntaxErrors {
     /** Whether {@code prefix} followed by a token of {@code type} is the start of some statement. */
     private static boolean continues(List<Token> prefix, int type) {
         List<Token> tokens = new ArrayList<>(prefix.size() + 2);
-        for (Token x : prefix) tokens.add(new org.antlr.v4.runtime.CommonToken(x));
-        tokens.add(new org.antlr.v4.runtime.CommonToken(type, type == Token.EOF ? "<EOF>" : "x"));
-        if (type != Token.EOF) tokens.add(new org.antlr.v4.runtime.CommonToken(Token.EOF, "<EOF>"));
-        for (int i = 0; i < tokens.size(); i++) ((org.antlr.v4.runtime.CommonToken) tokens.get(i)).setTokenIndex(i);
+        for (Token x : prefix) tokens.add(new CommonToken(x));
+        tokens.add(new CommonToken(type, type == Token.EOF ? "<EOF>" : "x"));
+        if (type != Token.EOF) tokens.add(new CommonToken(Token.EOF, "<EOF>"));
+        for (int i = 0; i < tokens.size(); i++) ((CommonToken) tokens.get(i)).setTokenIndex(i);
         var trial = new dev.termgate.parser.antlr.CypherParser(
-                new org.antlr.v4.runtime.CommonTokenStream(new org.antlr.v4.runtime.ListTokenSource(tokens)));
+                new CommonTokenStream(new ListTokenSource(tokens)));
         trial.removeErrorListeners();
         TrialStop stop = new TrialStop();
         trial.setErrorHandler(stop);
-        trial.getInterpreter().setPredictionMode(org.antlr.v4.runtime.atn.PredictionMode.SLL);
+        trial.getInterpreter().setPredictionMode(PredictionMode.SLL);
         try {
             trial.statement();
             return true;
