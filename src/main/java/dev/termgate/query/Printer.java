@@ -581,7 +581,7 @@ public final class Printer {
     }
 
     /** Labels, types and property keys may be keywords; only odd characters need backticks. */
-    static String schemaName(String name) {
+    public static String schemaName(String name) {
         return PLAIN_NAME.matcher(name).matches() ? name : quoted(name);
     }
 

@@ -11,6 +11,7 @@ import dev.termgate.graph.ImportException;
 import dev.termgate.link.LinkOptions;
 import dev.termgate.link.Linkers;
 import dev.termgate.link.SchemaLinker;
+import dev.termgate.query.Printer;
 import dev.termgate.schema.GraphSchema;
 
 import java.util.List;
@@ -50,12 +51,10 @@ public final class StandardPipeline implements Pipeline.Factory {
      * the first replies of a batch all waited for it.
      */
     private static void primeInBackground(QueryGate gate) {
-        Thread t = new Thread(() -> {
+        onSpareThread("termgate-prime", () -> {
             gate.check("MATCH (n) WHERE n.x = 1 RETURN n.y AS y ORDER BY y LIMIT 1");
             gate.check("MATCH (n RETURN n"); // the error path: the full lexer and the messages
-        }, "termgate-prime");
-        t.setDaemon(true);
-        t.start();
+        });
     }
 
     /**
@@ -66,7 +65,7 @@ public final class StandardPipeline implements Pipeline.Factory {
      */
     private static void primeEngineInBackground(GraphSchema schema, QueryGate gate, QueryRunner runner) {
         List<String> queries = primingQueries(schema);
-        Thread t = new Thread(() -> {
+        onSpareThread("termgate-prime-engine", () -> {
             for (String q : queries) {
                 Checked c = gate.check(q);
                 if (!c.valid()) continue;
@@ -78,7 +77,12 @@ public final class StandardPipeline implements Pipeline.Factory {
                     // a rehearsal only: the questions' own runs report their problems
                 }
             }
-        }, "termgate-prime-engine");
+        });
+    }
+
+    /** Starts work that nothing waits for on a daemon thread of its own, so it never holds the process open. */
+    private static void onSpareThread(String name, Runnable work) {
+        Thread t = new Thread(work, name);
         t.setDaemon(true);
         t.start();
     }
@@ -91,8 +95,8 @@ public final class StandardPipeline implements Pipeline.Factory {
         for (var p : schema.properties().values()) {
             for (String d : p.domains()) {
                 if (!schema.labels().containsKey(d)) continue;
-                String n = "(n:" + quoted(d) + ")";
-                String v = "n." + quoted(p.name());
+                String n = "(n:" + Printer.schemaName(d) + ")";
+                String v = "n." + Printer.schemaName(p.name());
                 return List.of(
                         "MATCH " + n + " RETURN " + v + " AS v LIMIT 1",
                         "MATCH " + n + " RETURN " + v + " AS v, count(*) AS c ORDER BY c DESC LIMIT 1",
@@ -101,10 +105,6 @@ public final class StandardPipeline implements Pipeline.Factory {
             }
         }
         return List.of();
-    }
-
-    private static String quoted(String name) {
-        return "`" + name.replace("`", "``") + "`";
     }
 
     private static Engine engine(PipelineSpec spec) throws Pipeline.PipelineException {
