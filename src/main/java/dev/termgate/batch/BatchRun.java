@@ -13,21 +13,24 @@ import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
-import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.ThreadFactory;
-import java.util.concurrent.ThreadPoolExecutor;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.concurrent.atomic.AtomicReference;
 
 /**
- * Asks the unfinished questions of a batch, {@code jobs} of them at a time, runs the accepted queries and records
- * each result as soon as it is complete. A question whose model call keeps failing after the retries is left
+ * Asks the unfinished questions of a batch on {@code workers} threads, runs the accepted queries and records each
+ * result as soon as it is complete. A question whose model call keeps failing after the retries is left
  * unfinished (the next run asks it again); a refused key or an unknown model stops the whole run, since every
  * question would fail alike.
+ * <p>
+ * With a model, the caller gives more workers than the model may have requests out ({@code --jobs}, which the
+ * model client enforces): while {@code jobs} workers wait for replies, the others check replies, run queries and
+ * get the next questions' cards and prompts ready, so a freed request slot is taken at once by a request that is
+ * ready. Checking a reply is then off the model's path: the model is kept as busy as {@code --jobs} allows.
  */
 public final class BatchRun {
 
@@ -42,14 +45,15 @@ public final class BatchRun {
 
     private final Asker asker;
     private final RunLimits limits;
-    private final int jobs;
+    private final int workers;
     private final boolean withRows;
 
-    public BatchRun(Asker asker, RunLimits limits, int jobs, boolean withRows) {
-        if (jobs < 1) throw new IllegalArgumentException("jobs must be at least 1");
+    /** @param workers questions handled at once (each: card, model, check, run, record) */
+    public BatchRun(Asker asker, RunLimits limits, int workers, boolean withRows) {
+        if (workers < 1) throw new IllegalArgumentException("workers must be at least 1");
         this.asker = asker;
         this.limits = limits;
-        this.jobs = jobs;
+        this.workers = workers;
         this.withRows = withRows;
     }
 
@@ -68,19 +72,11 @@ public final class BatchRun {
         AtomicReference<ServiceFailure> stop = new AtomicReference<>();
         AtomicReference<String> lastFailure = new AtomicReference<>();
         AtomicReference<IOException> writeError = new AtomicReference<>();
-        // The model is the scarce resource: each of the `jobs` askers hands the run and the writing of its
-        // answer to a finisher and asks the next question at once. When every finisher is busy and their
-        // queue is full, the asker finishes the answer itself, so a slow graph slows the asking down instead
-        // of piling up answers. The queue holds four answers per job: a process's first runs are slow (cold code),
-        // and a queue of one per job could fill with them and leave the askers to run them.
-        ExecutorService askers = Executors.newFixedThreadPool(jobs, daemon("termgate-batch"));
-        ThreadPoolExecutor finishers = new ThreadPoolExecutor(jobs, jobs, 0, TimeUnit.MILLISECONDS,
-                new ArrayBlockingQueue<>(4 * jobs), daemon("termgate-batch-run"), new ThreadPoolExecutor.CallerRunsPolicy());
-        List<Future<?>> finishing = java.util.Collections.synchronizedList(new ArrayList<>());
+        ExecutorService pool = Executors.newFixedThreadPool(workers, daemon("termgate-batch"));
         try {
-            List<Future<?>> asking = new ArrayList<>();
+            List<Future<?>> tasks = new ArrayList<>();
             for (BatchQuestion q : todo) {
-                asking.add(askers.submit(() -> {
+                tasks.add(pool.submit(() -> {
                     if (stop.get() != null || writeError.get() != null) {
                         unfinished.incrementAndGet();
                         return null;
@@ -97,28 +93,22 @@ public final class BatchRun {
                         }
                         return null;
                     }
-                    finishing.add(finishers.submit(() -> {
-                        try {
-                            Answer a = asker.finish(outcome, limits);
-                            log.append(record(q, a, withRows));
-                            (a.outcome().valid() ? valid : invalid).incrementAndGet();
-                            progress.finishedOne();
-                        } catch (IOException e) {
-                            unfinished.incrementAndGet();
-                            writeError.compareAndSet(null, e);
-                        }
-                        return null;
-                    }));
+                    try {
+                        Answer a = asker.finish(outcome, limits);
+                        log.append(record(q, a, withRows));
+                        (a.outcome().valid() ? valid : invalid).incrementAndGet();
+                        progress.finishedOne();
+                    } catch (IOException e) {
+                        unfinished.incrementAndGet();
+                        writeError.compareAndSet(null, e);
+                    }
                     return null;
                 }));
             }
-            awaitAll(asking);
-            awaitAll(List.copyOf(finishing));
+            awaitAll(tasks);
         } finally {
-            askers.shutdownNow();
-            finishers.shutdownNow();
-            askers.awaitTermination(5, TimeUnit.SECONDS);
-            finishers.awaitTermination(5, TimeUnit.SECONDS);
+            pool.shutdownNow();
+            pool.awaitTermination(5, TimeUnit.SECONDS);
         }
         if (writeError.get() != null) throw writeError.get();
         return new Summary(valid.get() + invalid.get(), valid.get(), invalid.get(), skipped, unfinished.get(),

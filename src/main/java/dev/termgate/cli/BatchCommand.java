@@ -38,6 +38,13 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
     /** Cards built ahead per worker: enough to never leave a worker waiting, few enough to keep memory flat (common practice). */
     static final int PREFETCH_PER_JOB = 4;
 
+    /**
+     * Workers per model request slot: half of them wait for replies while the other half check replies, run
+     * queries and ready the next requests, so that a slot freed by a reply is taken again at once (without them,
+     * the model sat idle for each reply's check; BatchThroughputBench).
+     */
+    static final int WORKERS_PER_JOB = 2;
+
     @Option(names = "--questions", required = true, paramLabel = "FILE",
             description = "questions: text (one per line), .csv (with a header) or .jsonl")
     Path questions;
@@ -48,7 +55,7 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
     @Option(names = "--column", paramLabel = "NAME", description = "the question column of a CSV file or field of a JSON-lines file (default: question)")
     String column;
 
-    @Option(names = "--jobs", paramLabel = "N", defaultValue = "4", description = "questions asked at once (default: ${DEFAULT-VALUE})")
+    @Option(names = "--jobs", paramLabel = "N", defaultValue = "4", description = "model requests out at a time; with the offline interpreter, questions at once (default: ${DEFAULT-VALUE})")
     int jobs;
 
     @Option(names = "--with-rows", description = "record the rows, not only their count")
@@ -69,7 +76,7 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
     public Integer call() throws IOException, InterruptedException {
         PrintWriter err = spec.commandLine().getErr();
         if (jobs < 1 || jobs > 256) throw new UserError(Exit.USAGE, "--jobs must be between 1 and 256");
-        var settings = model.settings();
+        var settings = model.settings().withInFlight(jobs);
         var prompts = model.prompts();
         var limits = graph.limits();
         QuestionFile.Questions qs = readQuestions();
@@ -89,7 +96,9 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
             AskWiring.rehearseInBackground(settings, prompts);
             Pipeline pipeline = openPipeline(err, ahead);
             try {
-                return run(pipeline, AskWiring.translator(settings, prompts, model.attempts, pipeline), qs, todo, log, limits, err);
+                int workers = settings.spec().offline() ? jobs : WORKERS_PER_JOB * jobs;
+                return run(pipeline, AskWiring.translator(settings, prompts, model.attempts, pipeline), workers, qs, todo,
+                        log, limits, err);
             } finally {
                 AskWiring.closeQuietly(pipeline);
             }
@@ -98,13 +107,13 @@ public final class BatchCommand extends QuestionCommand implements Callable<Inte
         }
     }
 
-    private int run(Pipeline pipeline, Translator translator, QuestionFile.Questions qs, List<BatchQuestion> todo, ResultLog log,
+    private int run(Pipeline pipeline, Translator translator, int workers, QuestionFile.Questions qs, List<BatchQuestion> todo, ResultLog log,
                     RunLimits limits, PrintWriter err) throws IOException, InterruptedException {
         Asker asker = new Asker(new TranslationLoop(translator, pipeline.gate(), pipeline.cards(), model.attempts),
                 pipeline.runner());
         BatchRun.Summary s;
         try (Progress progress = new Progress(err, System.console() != null, todo.size(), !noProgress)) {
-            s = new BatchRun(asker, limits, jobs, withRows).run(qs.questions(), log, progress);
+            s = new BatchRun(asker, limits, workers, withRows).run(qs.questions(), log, progress);
         }
         err.printf("termgate: %d asked (%d valid, %d without a valid query), %d already done, %d left without a result, %.1f s%n",
                 s.asked(), s.valid(), s.invalid(), s.skipped(), s.unfinished(), s.elapsed().toMillis() / 1000.0);

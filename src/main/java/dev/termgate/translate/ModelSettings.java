@@ -23,8 +23,10 @@ import java.util.Properties;
  * @param apiKey      empty when none was found (fine for Ollama and for a server on this machine)
  * @param timeout     the wait for one reply before it counts as timed out (then retried)
  * @param maxRetries  retries of one request after a time-out, 429 or 5xx
+ * @param inFlight    the most requests one client has out at a time (a batch's {@code --jobs}); 0 for no limit
  */
-public record ModelSettings(ModelSpec spec, String baseUrl, Optional<Secret> apiKey, Duration timeout, int maxRetries) {
+public record ModelSettings(ModelSpec spec, String baseUrl, Optional<Secret> apiKey, Duration timeout, int maxRetries,
+                            int inFlight) {
 
     public static final String DEFAULT_OPENAI_URL = "https://api.openai.com/v1";
     public static final String DEFAULT_OLLAMA_URL = "http://localhost:11434";
@@ -50,7 +52,7 @@ public record ModelSettings(ModelSpec spec, String baseUrl, Optional<Secret> api
         }
         if (key.isEmpty()) key = prop(config, p + ".api-key").or(() -> prop(config, "api-key"));
         Duration timeout = timeoutOption.or(() -> prop(config, "timeout").map(ModelSettings::seconds)).orElse(DEFAULT_TIMEOUT);
-        return new ModelSettings(spec, stripSlash(baseUrl), key.map(String::strip).map(Secret::new), timeout, DEFAULT_RETRIES);
+        return new ModelSettings(spec, stripSlash(baseUrl), key.map(String::strip).map(Secret::new), timeout, DEFAULT_RETRIES, 0);
     }
 
     /** Where the config file is looked for. */
@@ -83,11 +85,17 @@ public record ModelSettings(ModelSpec spec, String baseUrl, Optional<Secret> api
     }
 
     public ModelSettings withSpec(ModelSpec other) {
-        return new ModelSettings(other, baseUrl, apiKey, timeout, maxRetries);
+        return new ModelSettings(other, baseUrl, apiKey, timeout, maxRetries, inFlight);
     }
 
     public ModelSettings withRetries(int retries) {
-        return new ModelSettings(spec, baseUrl, apiKey, timeout, retries);
+        return new ModelSettings(spec, baseUrl, apiKey, timeout, retries, inFlight);
+    }
+
+    /** These settings with at most {@code n} requests out at a time (0: no limit). */
+    public ModelSettings withInFlight(int n) {
+        if (n < 0) throw new IllegalArgumentException("in-flight limit must not be negative");
+        return new ModelSettings(spec, baseUrl, apiKey, timeout, maxRetries, n);
     }
 
     private static Optional<String> prop(Properties p, String key) {

@@ -63,7 +63,7 @@ public final class ModelTranslator implements Translator {
     public static Reply rehearse(ModelSettings s, Prompts prompts, int times) {
         try (RehearsalServer server = new RehearsalServer(s.spec().provider())) {
             ModelSettings loopback = new ModelSettings(s.spec(), server.baseUrl(s.spec().provider()), Optional.empty(),
-                    s.timeout(), 0);
+                    s.timeout(), 0, 0);
             ModelTranslator t = new ModelTranslator(chatModel(loopback), s.spec().toString(), prompts, new Retry(0), 1);
             Reply last = null;
             for (int i = 0; i < times; i++) last = t.translate(TranslationRequest.first("rehearsal", "(no card)"));
@@ -75,7 +75,7 @@ public final class ModelTranslator implements Translator {
     }
 
     static ChatModel chatModel(ModelSettings s) {
-        HttpClientBuilder http = ModelHttpClient.builder(s.timeout(), s.apiKey(), s.spec().model());
+        HttpClientBuilder http = ModelHttpClient.builder(s.timeout(), s.apiKey(), s.spec().model(), s.inFlight());
         String modelName = s.spec().model();
         return switch (s.spec().provider()) {
             case OPENAI -> {

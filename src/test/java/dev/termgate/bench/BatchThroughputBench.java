@@ -196,18 +196,24 @@ class BatchThroughputBench {
                     .forEach(e -> top.append(String.format(Locale.ROOT, " %s %.1f s;", e.getKey(), e.getValue() / 100.0)));
             System.out.println("CPU by thread (names cut at 15 characters by Linux):" + top);
             if (Boolean.getBoolean("bench.detail")) {
-                StringBuilder firsts = new StringBuilder("translate_ms of the first 64 results:");
-                for (String line : lines.subList(0, Math.min(64, lines.size()))) {
-                    firsts.append(' ').append(Math.round(com.google.gson.JsonParser.parseString(line).getAsJsonObject()
-                            .getAsJsonObject("timings").get("translate_ms").getAsDouble()));
+                for (String key : List.of("card_ms", "translate_ms")) {
+                    StringBuilder firsts = new StringBuilder(key + " of the first 64 results:");
+                    for (String line : lines.subList(0, Math.min(64, lines.size()))) {
+                        firsts.append(' ').append(Math.round(com.google.gson.JsonParser.parseString(line).getAsJsonObject()
+                                .getAsJsonObject("timings").get(key).getAsDouble()));
+                    }
+                    System.out.println(firsts);
                 }
-                System.out.println(firsts);
                 System.out.println("first requests arrived at (ms after the first): " + arrivals);
                 System.out.println("CPU (1/100 s) by thread in each half second, the first request at "
                         + (first[0] - t0) / 1_000_000 + " ms:");
                 timeline.forEach(System.out::println);
             }
             turnarounds(server.exchanges(), latency);
+            // --jobs is the most requests the model may have at once: the figure is void if the tool exceeded it.
+            int atOnce = ScriptedModelServer.mostAtOnce(server.exchanges());
+            System.out.println("most requests out at once: " + atOnce);
+            assertTrue(atOnce <= jobs, "more than " + jobs + " requests at once: " + atOnce);
             // The tail: the last answer's run and record, then the end of the process (JVM shutdown), which the
             // wall time includes.
             System.out.printf(Locale.ROOT, "last request arrived %.0f ms after the first; the process ended %.0f ms after its reply%n",

@@ -188,4 +188,23 @@ class BatchCommandTest {
         assertEquals(0, r.code());
         assertTrue(r.err().contains("1 line(s) are not results of this tool; they are kept"), r.err());
     }
+
+    @Test
+    void jobsCapsTheRequestsOutAtATimeAndTheCapIsReached(@TempDir Path dir) throws Exception {
+        StringBuilder sb = new StringBuilder();
+        for (int i = 0; i < 24; i++) sb.append("slow question ").append(i).append('\n');
+        Path q = Files.writeString(dir.resolve("q.txt"), sb.toString());
+        Path out = dir.resolve("out.jsonl");
+        try (ScriptedModelServer slow = new ScriptedModelServer(ScriptedModelServer.Protocol.OPENAI,
+                seen -> ScriptedModelServer.delay(150, ScriptedModelServer.answer("MATCH (v:Vessel) RETURN v.name")))) {
+            List<String> args = List.of("--model", slow.modelOption("m1"), "--base-url", slow.baseUrl(), "--schema-free",
+                    "--no-progress", "--questions", q.toString(), "--out", out.toString(), "--jobs", "3");
+            CliRun.Result r = CliRun.run(new BatchCommand(new ToyPipeline()), CliRun.withEnv(CliRun.env()), args.toArray(String[]::new));
+            assertEquals(0, r.code(), r.all());
+            assertEquals(24, records(out).size());
+            // More workers than --jobs run (they ready requests while others wait), but the model never has more
+            // than 3 requests at once; with 150 ms replies and 24 questions it has 3 most of the time.
+            assertEquals(3, ScriptedModelServer.mostAtOnce(slow.exchanges()));
+        }
+    }
 }

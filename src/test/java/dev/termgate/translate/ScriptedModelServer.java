@@ -80,7 +80,11 @@ public final class ScriptedModelServer implements AutoCloseable {
      * told apart by the client's port, so that a benchmark can split a round trip into the client's and the
      * server's share.
      */
-    public record Exchange(int clientPort, long requestNanos, long repliedNanos) {}
+    /**
+     * One answered request: read whole at {@code requestNanos}; its reply about to be written at
+     * {@code answeringNanos} (before the client can have it) and written at {@code repliedNanos}.
+     */
+    public record Exchange(int clientPort, long requestNanos, long answeringNanos, long repliedNanos) {}
 
     /** What the server does with one request. */
     public sealed interface Action {
@@ -150,6 +154,27 @@ public final class ScriptedModelServer implements AutoCloseable {
         return new ArrayList<>(exchanges);
     }
 
+    /**
+     * The most requests a client had out at one moment, as the server can tell: from a request read whole to its
+     * reply about to be written (a client has its reply only after that, so no two of its own count as one).
+     */
+    public static int mostAtOnce(List<Exchange> exchanges) {
+        List<long[]> edges = new ArrayList<>();
+        for (Exchange e : exchanges) {
+            edges.add(new long[] {e.requestNanos(), 1});
+            edges.add(new long[] {e.answeringNanos(), -1});
+        }
+        // At equal times a reply counts before a request.
+        edges.sort((a, b) -> a[0] != b[0] ? Long.compare(a[0], b[0]) : Long.compare(a[1], b[1]));
+        int now = 0;
+        int most = 0;
+        for (long[] e : edges) {
+            now += (int) e[1];
+            most = Math.max(most, now);
+        }
+        return most;
+    }
+
     public void forgetExchanges() {
         exchanges.clear();
     }
@@ -169,6 +194,7 @@ public final class ScriptedModelServer implements AutoCloseable {
                 }
                 a = d.then();
             }
+            long answeringNanos = System.nanoTime();
             if (a instanceof Action.Status st) {
                 st.headers().forEach((k, v) -> x.getResponseHeaders().add(k, v));
                 send(x, st.code(), st.body());
@@ -176,7 +202,7 @@ public final class ScriptedModelServer implements AutoCloseable {
                 x.getResponseHeaders().add("Content-Type", "application/json");
                 send(x, 200, protocol == Protocol.OPENAI ? openAi(s, an) : ollama(s, an));
             }
-            exchanges.add(new Exchange(x.getRemoteAddress().getPort(), requestNanos, System.nanoTime()));
+            exchanges.add(new Exchange(x.getRemoteAddress().getPort(), requestNanos, answeringNanos, System.nanoTime()));
         } catch (IOException e) {
             // the client went away (a time-out test): nothing to answer
         }
