@@ -19,6 +19,14 @@ public final class Linkers {
         return standard(schema, LinkOptions.defaults());
     }
 
+    /**
+     * Starts loading the embedding model in the background (about half a second of a core), for a caller that
+     * knows questions will need it while it has other loading to do.
+     */
+    public static void loadModelInBackground() {
+        MiniLmEmbedder.INSTANCE.loadInBackground();
+    }
+
     /** Builds the linker's indexes and embeddings now instead of on the first question. */
     public static SchemaLinker warmUp(SchemaLinker linker) {
         if (linker instanceof StandardLinker s) s.warmUp();

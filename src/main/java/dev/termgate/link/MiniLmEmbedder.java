@@ -14,8 +14,10 @@ import dev.langchain4j.model.embedding.onnx.allminilml6v2q.AllMiniLmL6V2Quantize
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import java.util.concurrent.Executor;
 import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicInteger;
@@ -52,6 +54,22 @@ final class MiniLmEmbedder implements Embedder {
     }
 
     /**
+     * Starts loading the model on a thread of its own, so that a later first embedding does not wait for it; a
+     * failure is left for that first embedding to report.
+     */
+    void loadInBackground() {
+        Thread t = new Thread(() -> {
+            try {
+                model();
+            } catch (RuntimeException e) {
+                // told by the first embedding, which tries again
+            }
+        }, "termgate-embed-load");
+        t.setDaemon(true);
+        t.start();
+    }
+
+    /**
      * The model's batch worker pool. Daemon threads: the library's default pool keeps a JVM alive for a minute
      * after the last embedding, which a command (or a test runner) must not wait for.
      */
@@ -74,6 +92,9 @@ final class MiniLmEmbedder implements Embedder {
 
         Quiet(Executor workers) {
             super(workers);
+            ClassLoader loader = AllMiniLmL6V2QuantizedEmbeddingModel.class.getClassLoader();
+            Optional<Path> cache = LinkOptions.defaultCacheDir();
+            UnpackedModel.pointRuntimeAtUnpackedLibraries(loader, cache);
             OrtEnvironment env = OrtEnvironment.getEnvironment();
             try (OrtSession.SessionOptions options = new OrtSession.SessionOptions();
                  InputStream tokenizer = resource(TOKENIZER)) {
@@ -81,12 +102,17 @@ final class MiniLmEmbedder implements Embedder {
                 options.setInterOpNumThreads(1);
                 options.addConfigEntry("session.intra_op.allow_spinning", "0");
                 options.addConfigEntry("session.inter_op.allow_spinning", "0");
-                byte[] model;
-                try (InputStream in = resource(MODEL)) {
-                    model = in.readAllBytes();
+                Optional<Path> unpacked = UnpackedModel.model(loader, MODEL, cache);
+                OrtSession session;
+                if (unpacked.isPresent()) {
+                    session = env.createSession(unpacked.get().toString(), options);
+                } else {
+                    try (InputStream in = resource(MODEL)) {
+                        session = env.createSession(in.readAllBytes(), options);
+                    }
                 }
                 // Same pooling as the artifact's own model class (mean of the token vectors).
-                encoder = new OnnxBertBiEncoder(env, env.createSession(model, options), tokenizer, PoolingMode.MEAN);
+                encoder = new OnnxBertBiEncoder(env, session, tokenizer, PoolingMode.MEAN);
             } catch (OrtException e) {
                 throw new IllegalStateException("the bundled embedding model cannot be loaded: " + e.getMessage(), e);
             } catch (IOException e) {

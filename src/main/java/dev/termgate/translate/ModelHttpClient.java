@@ -35,8 +35,8 @@ final class ModelHttpClient implements HttpClient {
     private final Duration readTimeout;
     private final Optional<Secret> key;
     private final String modelName;
-    /** Requests out at a time, when limited: taken just before a request is sent, given back when its reply is in. */
-    private final Optional<java.util.concurrent.Semaphore> slots;
+    /** Requests out at a time, when limited. */
+    private final Optional<RequestRelay> relay;
 
     /** The selector threads of the JDK clients made here (see {@link #stopSelectors}). */
     private static final Set<Thread> SELECTORS = java.util.concurrent.ConcurrentHashMap.newKeySet();
@@ -59,8 +59,7 @@ final class ModelHttpClient implements HttpClient {
         this.readTimeout = readTimeout;
         this.key = key;
         this.modelName = modelName;
-        // Fair: requests go out in the order they were ready, so a batch's questions are asked in file order.
-        this.slots = inFlight > 0 ? Optional.of(new java.util.concurrent.Semaphore(inFlight, true)) : Optional.empty();
+        this.relay = inFlight > 0 ? Optional.of(new RequestRelay(inFlight)) : Optional.empty();
     }
 
     /**
@@ -129,26 +128,16 @@ final class ModelHttpClient implements HttpClient {
         throw failure(status, response.body(), response.headers().firstValue("Retry-After"), request);
     }
 
-    /**
-     * Sends a request and waits for its reply; when requests are limited, first waits for a free slot. The slot
-     * is given back by the thread that completes the reply (the client's selector), not by this one once it has
-     * woken up: a request waiting for a slot is then on its way one thread switch sooner, which on a small busy
-     * machine was milliseconds per reply (BatchThroughputBench).
-     */
+    /** Sends a request and waits for its reply; when requests are limited, it may first wait for a free slot. */
     private HttpResponse<String> exchange(java.net.http.HttpRequest request) throws IOException, InterruptedException {
         HttpResponse.BodyHandler<String> text = HttpResponse.BodyHandlers.ofString(StandardCharsets.UTF_8);
-        if (slots.isEmpty()) return http.send(request, text);
-        java.util.concurrent.Semaphore free = slots.get();
-        free.acquire();
-        java.util.concurrent.CompletableFuture<HttpResponse<String>> reply;
-        try {
-            reply = http.sendAsync(request, text).whenComplete((r, e) -> free.release());
-        } catch (RuntimeException e) {
-            free.release();
-            throw e;
-        }
+        if (relay.isEmpty()) return http.send(request, text);
+        java.util.concurrent.CompletableFuture<HttpResponse<String>> reply = relay.get().submit(() -> http.sendAsync(request, text));
         try {
             return reply.get();
+        } catch (InterruptedException e) {
+            reply.cancel(false); // withdrawn if it was still waiting for a slot
+            throw e;
         } catch (java.util.concurrent.ExecutionException e) {
             // The same failures as a blocking send: a time-out is an IOException too.
             if (e.getCause() instanceof IOException io) throw io;

@@ -28,6 +28,9 @@ public final class StandardPipeline implements Pipeline.Factory {
         CardSource cards = questionCards(schema, spec.cardBudget());
         // Cards asked for ahead start now, on their own thread: the linker, the embedding model and the tokenizer
         // then load while this thread loads the graph, and the first questions find their cards ready.
+        // The embedding model loads on a thread of its own meanwhile: alone, the builder met it only after the whole
+        // card and the linker, and the first cards came after the graph.
+        if (spec.cardsAhead().isPresent()) Linkers.loadModelInBackground();
         CardPrefetch ahead = spec.cardsAhead().map(a -> new CardPrefetch(cards, a.questions(), a.window())).orElse(null);
         Engine engine;
         try {

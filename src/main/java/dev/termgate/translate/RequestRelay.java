@@ -1,0 +1,83 @@
+package dev.termgate.translate;
+
+import java.util.ArrayDeque;
+import java.util.concurrent.CompletableFuture;
+import java.util.function.Supplier;
+
+/**
+ * At most {@code limit} requests out at a time (a batch's {@code --jobs}), the others queued in the order they
+ * were ready. The thread that completes a reply starts the next queued request before it hands the reply on: the
+ * model gets its next request without waiting for a waiting thread to be woken and scheduled, which on a small,
+ * busy machine took milliseconds per reply, and tens of them while a process's code was still cold
+ * (BatchThroughputBench).
+ */
+final class RequestRelay {
+
+    /** A request waiting for a slot, and where its reply goes. */
+    private static final class Waiting<T> {
+        final Supplier<CompletableFuture<T>> send;
+        final CompletableFuture<T> reply = new CompletableFuture<>();
+
+        Waiting(Supplier<CompletableFuture<T>> send) {
+            this.send = send;
+        }
+    }
+
+    private final int limit;
+    private final ArrayDeque<Waiting<?>> queue = new ArrayDeque<>();
+    private int out;
+
+    RequestRelay(int limit) {
+        if (limit < 1) throw new IllegalArgumentException("limit must be at least 1");
+        this.limit = limit;
+    }
+
+    /**
+     * Starts {@code send} now if a slot is free, else when one is; the result completes as the sent request's does.
+     * Cancelling the result before the request started withdraws it.
+     */
+    <T> CompletableFuture<T> submit(Supplier<CompletableFuture<T>> send) {
+        Waiting<T> w = new Waiting<>(send);
+        boolean now;
+        synchronized (this) {
+            now = out < limit;
+            if (now) out++;
+            else queue.add(w);
+        }
+        if (now) start(w);
+        return w.reply;
+    }
+
+    /** Requests out now (tests). */
+    synchronized int out() {
+        return out;
+    }
+
+    private <T> void start(Waiting<T> w) {
+        CompletableFuture<T> sent;
+        try {
+            sent = w.send.get();
+        } catch (RuntimeException e) {
+            handOn();
+            w.reply.completeExceptionally(e);
+            return;
+        }
+        sent.whenComplete((reply, failure) -> {
+            handOn();
+            if (failure != null) w.reply.completeExceptionally(failure);
+            else w.reply.complete(reply);
+        });
+    }
+
+    /** A request is done: its slot goes to the first queued request that is still wanted. */
+    private void handOn() {
+        Waiting<?> next;
+        synchronized (this) {
+            do {
+                next = queue.poll();
+            } while (next != null && next.reply.isDone());
+            if (next == null) out--;
+        }
+        if (next != null) start(next);
+    }
+}
