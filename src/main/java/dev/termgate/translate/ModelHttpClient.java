@@ -132,7 +132,8 @@ final class ModelHttpClient implements HttpClient {
     private HttpResponse<String> exchange(java.net.http.HttpRequest request) throws IOException, InterruptedException {
         HttpResponse.BodyHandler<String> text = HttpResponse.BodyHandlers.ofString(StandardCharsets.UTF_8);
         if (relay.isEmpty()) return http.send(request, text);
-        java.util.concurrent.CompletableFuture<HttpResponse<String>> reply = relay.get().submit(() -> http.sendAsync(request, text));
+        java.util.concurrent.CompletableFuture<HttpResponse<String>> reply = relay.get().submit(done ->
+                http.sendAsync(request, info -> new Signalling<>(text.apply(info), done)));
         try {
             return reply.get();
         } catch (InterruptedException e) {
@@ -143,6 +144,25 @@ final class ModelHttpClient implements HttpClient {
             if (e.getCause() instanceof IOException io) throw io;
             if (e.getCause() instanceof RuntimeException r) throw r;
             throw new IOException(e.getCause());
+        }
+    }
+
+    /**
+     * A reply body that says when it is all in, on the thread that read it (the client's selector): the JDK client
+     * hands a finished reply to its caller through a new thread on a two-core machine (its default async pool),
+     * and the next request should not wait for that.
+     */
+    private record Signalling<T>(HttpResponse.BodySubscriber<T> body, Runnable done) implements HttpResponse.BodySubscriber<T> {
+        @Override public java.util.concurrent.CompletionStage<T> getBody() { return body.getBody(); }
+        @Override public void onSubscribe(java.util.concurrent.Flow.Subscription s) { body.onSubscribe(s); }
+        @Override public void onNext(List<java.nio.ByteBuffer> item) { body.onNext(item); }
+        @Override public void onError(Throwable e) {
+            done.run();
+            body.onError(e);
+        }
+        @Override public void onComplete() {
+            done.run();
+            body.onComplete();
         }
     }
 

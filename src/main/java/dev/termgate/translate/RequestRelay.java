@@ -2,23 +2,24 @@ package dev.termgate.translate;
 
 import java.util.ArrayDeque;
 import java.util.concurrent.CompletableFuture;
-import java.util.function.Supplier;
+import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.function.Function;
 
 /**
  * At most {@code limit} requests out at a time (a batch's {@code --jobs}), the others queued in the order they
- * were ready. The thread that completes a reply starts the next queued request before it hands the reply on: the
- * model gets its next request without waiting for a waiting thread to be woken and scheduled, which on a small,
- * busy machine took milliseconds per reply, and tens of them while a process's code was still cold
- * (BatchThroughputBench).
+ * were ready. The thread that finishes reading a reply starts the next queued request (a sender signals it through
+ * the {@code done} it is given, else the request's completion does): the model gets its next request without
+ * waiting for a waiting thread to be woken and scheduled, which on a small, busy machine took milliseconds per
+ * reply, and tens of them while a process's code was still cold (BatchThroughputBench).
  */
 final class RequestRelay {
 
     /** A request waiting for a slot, and where its reply goes. */
     private static final class Waiting<T> {
-        final Supplier<CompletableFuture<T>> send;
+        final Function<Runnable, CompletableFuture<T>> send;
         final CompletableFuture<T> reply = new CompletableFuture<>();
 
-        Waiting(Supplier<CompletableFuture<T>> send) {
+        Waiting(Function<Runnable, CompletableFuture<T>> send) {
             this.send = send;
         }
     }
@@ -34,9 +35,10 @@ final class RequestRelay {
 
     /**
      * Starts {@code send} now if a slot is free, else when one is; the result completes as the sent request's does.
-     * Cancelling the result before the request started withdraws it.
+     * {@code send} is given the signal that its reply is in (its slot may go on), to call as early as it can; the
+     * request's completion gives it too. Cancelling the result before the request started withdraws it.
      */
-    <T> CompletableFuture<T> submit(Supplier<CompletableFuture<T>> send) {
+    <T> CompletableFuture<T> submit(Function<Runnable, CompletableFuture<T>> send) {
         Waiting<T> w = new Waiting<>(send);
         boolean now;
         synchronized (this) {
@@ -54,16 +56,20 @@ final class RequestRelay {
     }
 
     private <T> void start(Waiting<T> w) {
+        AtomicBoolean handedOn = new AtomicBoolean();
+        Runnable done = () -> {
+            if (handedOn.compareAndSet(false, true)) handOn();
+        };
         CompletableFuture<T> sent;
         try {
-            sent = w.send.get();
+            sent = w.send.apply(done);
         } catch (RuntimeException e) {
-            handOn();
+            done.run();
             w.reply.completeExceptionally(e);
             return;
         }
         sent.whenComplete((reply, failure) -> {
-            handOn();
+            done.run();
             if (failure != null) w.reply.completeExceptionally(failure);
             else w.reply.complete(reply);
         });

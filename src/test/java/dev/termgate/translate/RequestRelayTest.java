@@ -19,7 +19,7 @@ class RequestRelayTest {
     private final List<String> order = new ArrayList<>();
 
     private CompletableFuture<String> send(RequestRelay relay, String name) {
-        return relay.submit(() -> {
+        return relay.submit(done -> {
             order.add(name);
             CompletableFuture<String> f = new CompletableFuture<>();
             sent.add(f);
@@ -65,7 +65,7 @@ class RequestRelayTest {
     @Test
     void aRequestThatCannotBeSentFreesItsSlot() {
         RequestRelay relay = new RequestRelay(1);
-        CompletableFuture<String> bad = relay.submit(() -> {
+        CompletableFuture<String> bad = relay.submit(done -> {
             throw new IllegalArgumentException("bad URI");
         });
         assertTrue(bad.isCompletedExceptionally());
@@ -86,5 +86,27 @@ class RequestRelayTest {
         sent.get(1).complete("C");
         assertEquals("C", kept.join());
         assertEquals(0, relay.out());
+    }
+
+    @Test
+    void aReplySignalledInHandsItsSlotOnOnceBeforeItCompletes() {
+        RequestRelay relay = new RequestRelay(1);
+        List<Runnable> signals = new ArrayList<>();
+        CompletableFuture<String> first = relay.submit(done -> {
+            signals.add(done);
+            order.add("a");
+            CompletableFuture<String> f = new CompletableFuture<>();
+            sent.add(f);
+            return f;
+        });
+        send(relay, "b");
+        send(relay, "c");
+        signals.get(0).run();
+        assertEquals(List.of("a", "b"), order, "the slot went on when the reply was in");
+        signals.get(0).run();
+        sent.get(0).complete("A");
+        assertEquals(List.of("a", "b"), order, "one reply hands its slot on once");
+        assertEquals("A", first.join());
+        assertEquals(1, relay.out());
     }
 }
