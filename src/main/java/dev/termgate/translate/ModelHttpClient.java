@@ -107,7 +107,7 @@ final class ModelHttpClient implements HttpClient {
                     ? java.net.http.HttpRequest.BodyPublishers.noBody()
                     : java.net.http.HttpRequest.BodyPublishers.ofString(body, StandardCharsets.UTF_8));
         }
-        HttpResponse<String> response;
+        Got response;
         try {
             response = exchange(b.build());
         } catch (HttpTimeoutException e) {
@@ -120,7 +120,7 @@ final class ModelHttpClient implements HttpClient {
             Thread.currentThread().interrupt();
             throw new ServiceFailure(ServiceFailure.Kind.FATAL, "cancelled", Optional.empty());
         }
-        int status = response.statusCode();
+        int status = response.status();
         if (status / 100 == 2) {
             return SuccessfulHttpResponse.builder().statusCode(status).headers(response.headers().map())
                     .body(response.body()).build();
@@ -128,32 +128,48 @@ final class ModelHttpClient implements HttpClient {
         throw failure(status, response.body(), response.headers().firstValue("Retry-After"), request);
     }
 
+    /** A reply as read: status, headers, body. */
+    private record Got(int status, java.net.http.HttpHeaders headers, String body) {
+        static Got of(HttpResponse<String> r) {
+            return new Got(r.statusCode(), r.headers(), r.body());
+        }
+    }
+
     /** Sends a request and waits for its reply; when requests are limited, it may first wait for a free slot. */
-    private HttpResponse<String> exchange(java.net.http.HttpRequest request) throws IOException, InterruptedException {
+    private Got exchange(java.net.http.HttpRequest request) throws IOException, InterruptedException {
         HttpResponse.BodyHandler<String> text = HttpResponse.BodyHandlers.ofString(StandardCharsets.UTF_8);
-        if (relay.isEmpty()) return http.send(request, text);
-        java.util.concurrent.CompletableFuture<HttpResponse<String>> reply = relay.get().submit(done ->
-                http.sendAsync(request, info -> new Signalling<>(text.apply(info), done)));
+        if (relay.isEmpty()) return Got.of(http.send(request, text));
+        java.util.concurrent.CompletableFuture<Got> got = new java.util.concurrent.CompletableFuture<>();
+        java.util.concurrent.CompletableFuture<HttpResponse<String>> sent = relay.get().submit(done ->
+                http.sendAsync(request, info -> new Signalling(text.apply(info), info, done, got)));
+        // Failures that have no body (time-outs, refused connections) come only this way.
+        sent.whenComplete((r, failure) -> {
+            if (failure != null) got.completeExceptionally(failure);
+            else got.complete(Got.of(r));
+        });
         try {
-            return reply.get();
+            return got.get();
         } catch (InterruptedException e) {
-            reply.cancel(false); // withdrawn if it was still waiting for a slot
+            sent.cancel(false); // withdrawn if it was still waiting for a slot
             throw e;
         } catch (java.util.concurrent.ExecutionException e) {
             // The same failures as a blocking send: a time-out is an IOException too.
-            if (e.getCause() instanceof IOException io) throw io;
-            if (e.getCause() instanceof RuntimeException r) throw r;
-            throw new IOException(e.getCause());
+            Throwable cause = e.getCause();
+            if (cause instanceof java.util.concurrent.CompletionException && cause.getCause() != null) cause = cause.getCause();
+            if (cause instanceof IOException io) throw io;
+            if (cause instanceof RuntimeException r) throw r;
+            throw new IOException(cause);
         }
     }
 
     /**
-     * A reply body that says when it is all in, on the thread that read it (the client's selector): the JDK client
-     * hands a finished reply to its caller through a new thread on a two-core machine (its default async pool),
-     * and the next request should not wait for that.
+     * A reply body that, on the thread that read it (the client's selector), hands the request's slot on and the
+     * reply to its asker. The JDK client passes a finished sendAsync reply to its caller through a new thread on a
+     * two-core machine (its default async pool): neither the next request nor the asker waits for that thread.
      */
-    private record Signalling<T>(HttpResponse.BodySubscriber<T> body, Runnable done) implements HttpResponse.BodySubscriber<T> {
-        @Override public java.util.concurrent.CompletionStage<T> getBody() { return body.getBody(); }
+    private record Signalling(HttpResponse.BodySubscriber<String> body, HttpResponse.ResponseInfo info, Runnable done,
+                              java.util.concurrent.CompletableFuture<Got> got) implements HttpResponse.BodySubscriber<String> {
+        @Override public java.util.concurrent.CompletionStage<String> getBody() { return body.getBody(); }
         @Override public void onSubscribe(java.util.concurrent.Flow.Subscription s) { body.onSubscribe(s); }
         @Override public void onNext(List<java.nio.ByteBuffer> item) { body.onNext(item); }
         @Override public void onError(Throwable e) {
@@ -163,6 +179,8 @@ final class ModelHttpClient implements HttpClient {
         @Override public void onComplete() {
             done.run();
             body.onComplete();
+            String text = body.getBody().toCompletableFuture().getNow(null);
+            if (text != null) got.complete(new Got(info.statusCode(), info.headers(), text));
         }
     }
 
