@@ -45,10 +45,21 @@ class BatchCommandTest {
     }
 
     static CliRun.Result batch(Path questions, Path out, String... extra) {
+        return batch(server, questions, out, extra);
+    }
+
+    static CliRun.Result batch(ScriptedModelServer server, Path questions, Path out, String... extra) {
         List<String> args = new ArrayList<>(List.of("--model", server.modelOption("m1"), "--base-url", server.baseUrl(),
                 "--schema-free", "--no-progress", "--questions", questions.toString(), "--out", out.toString()));
         args.addAll(List.of(extra));
         return CliRun.run(new BatchCommand(new ToyPipeline()), CliRun.withEnv(CliRun.env()), args.toArray(String[]::new));
+    }
+
+    /** A text question file of {@code n} numbered questions. */
+    static Path numberedQuestions(Path dir, int n) throws Exception {
+        StringBuilder sb = new StringBuilder();
+        for (int i = 0; i < n; i++) sb.append("question number ").append(i).append('\n');
+        return Files.writeString(dir.resolve("q.txt"), sb.toString());
     }
 
     static List<JsonObject> records(Path out) throws Exception {
@@ -174,9 +185,7 @@ class BatchCommandTest {
 
     @Test
     void theResultFileIsAppendedWithWholeLines(@TempDir Path dir) throws Exception {
-        StringBuilder sb = new StringBuilder();
-        for (int i = 0; i < 30; i++) sb.append("question number ").append(i).append('\n');
-        Path q = Files.writeString(dir.resolve("q.txt"), sb.toString());
+        Path q = numberedQuestions(dir, 30);
         Path out = dir.resolve("out.jsonl");
         CliRun.Result r = batch(q, out, "--jobs", "8");
         assertEquals(0, r.code(), r.all());
@@ -191,15 +200,11 @@ class BatchCommandTest {
 
     @Test
     void jobsCapsTheRequestsOutAtATimeAndTheCapIsReached(@TempDir Path dir) throws Exception {
-        StringBuilder sb = new StringBuilder();
-        for (int i = 0; i < 24; i++) sb.append("slow question ").append(i).append('\n');
-        Path q = Files.writeString(dir.resolve("q.txt"), sb.toString());
+        Path q = numberedQuestions(dir, 24);
         Path out = dir.resolve("out.jsonl");
         try (ScriptedModelServer slow = new ScriptedModelServer(ScriptedModelServer.Protocol.OPENAI,
                 seen -> ScriptedModelServer.delay(150, ScriptedModelServer.answer("MATCH (v:Vessel) RETURN v.name")))) {
-            List<String> args = List.of("--model", slow.modelOption("m1"), "--base-url", slow.baseUrl(), "--schema-free",
-                    "--no-progress", "--questions", q.toString(), "--out", out.toString(), "--jobs", "3");
-            CliRun.Result r = CliRun.run(new BatchCommand(new ToyPipeline()), CliRun.withEnv(CliRun.env()), args.toArray(String[]::new));
+            CliRun.Result r = batch(slow, q, out, "--jobs", "3");
             assertEquals(0, r.code(), r.all());
             assertEquals(24, records(out).size());
             // More workers than --jobs run (they ready requests while others wait), but the model never has more

@@ -17,9 +17,12 @@ class RequestRelayTest {
     /** Requests that a test answers by hand, in the order they were sent. */
     private final List<CompletableFuture<String>> sent = new ArrayList<>();
     private final List<String> order = new ArrayList<>();
+    /** Each sent request's signal that its reply is in. */
+    private final List<Runnable> signals = new ArrayList<>();
 
     private CompletableFuture<String> send(RequestRelay relay, String name) {
         return relay.submit(done -> {
+            signals.add(done);
             order.add(name);
             CompletableFuture<String> f = new CompletableFuture<>();
             sent.add(f);
@@ -91,14 +94,7 @@ class RequestRelayTest {
     @Test
     void aReplySignalledInHandsItsSlotOnOnceBeforeItCompletes() {
         RequestRelay relay = new RequestRelay(1);
-        List<Runnable> signals = new ArrayList<>();
-        CompletableFuture<String> first = relay.submit(done -> {
-            signals.add(done);
-            order.add("a");
-            CompletableFuture<String> f = new CompletableFuture<>();
-            sent.add(f);
-            return f;
-        });
+        CompletableFuture<String> first = send(relay, "a");
         send(relay, "b");
         send(relay, "c");
         signals.get(0).run();
