@@ -26,10 +26,10 @@ public final class StandardPipeline implements Pipeline.Factory {
         QueryGate gate = StandardGate.forSchema(schema, spec.schemaFree());
         primeInBackground(gate);
         CardSource cards = questionCards(schema, spec.cardBudget());
-        // Cards asked for ahead start now, on their own thread: the linker, the embedding model and the tokenizer
-        // then load while this thread loads the graph, and the first questions find their cards ready.
-        // The embedding model loads on a thread of its own meanwhile: alone, the builder met it only after the whole
-        // card and the linker, and the first cards came after the graph.
+        // Cards asked for ahead start now, on their own thread: the tokenizer and the linker load while this thread
+        // loads the graph, and the first questions find their cards ready. The embedding model loads on a third
+        // thread: left to the card builder, it came only after the whole card and the linker, and the first cards
+        // after the graph. (When the whole card fits the budget it loads in vain: about half a second of a core.)
         if (spec.cardsAhead().isPresent()) Linkers.loadModelInBackground();
         CardPrefetch ahead = spec.cardsAhead().map(a -> new CardPrefetch(cards, a.questions(), a.window())).orElse(null);
         Engine engine;
