@@ -35,7 +35,7 @@ import java.util.concurrent.Callable;
                 "4:internal error"})
 public final class BatchCommand extends QuestionCommand implements Callable<Integer> {
 
-    /** Cards built ahead per worker: enough to never leave a worker waiting, few enough to keep memory flat (common practice). */
+    /** Cards built ahead per job: enough to never leave a worker waiting, few enough to keep memory flat (common practice). */
     static final int PREFETCH_PER_JOB = 4;
 
     /**

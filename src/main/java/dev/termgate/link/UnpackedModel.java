@@ -92,7 +92,6 @@ final class UnpackedModel {
 
     private static Optional<JarEntry> entry(URL url) throws IOException {
         if (!(url.openConnection() instanceof JarURLConnection jar)) return Optional.empty();
-        jar.setUseCaches(true);
         JarEntry e = jar.getJarEntry();
         return e == null || e.getCrc() < 0 || e.getSize() < 0 ? Optional.empty() : Optional.of(e);
     }
