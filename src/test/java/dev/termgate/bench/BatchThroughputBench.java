@@ -111,7 +111,7 @@ class BatchThroughputBench {
         String body = "{\"model\":\"m\",\"messages\":[{\"role\":\"user\",\"content\":\"warm-up\"}]}";
         var compiler = java.lang.management.ManagementFactory.getCompilationMXBean();
         // Until this JVM's compilers have been idle for half a second, at most 20 rounds (on the CI machine it has
-        // always taken all 20, about 6,000 requests, and the server's compiler has since stayed quiet): a real model service
+        // always taken all 20, about 6,000 requests): a real model service
         // runs on other machines, and this one's optimising compiler, still busy with the server's code, took a
         // fifth of the two cores during the tool's first replies (perf, by thread).
         long quietSince = System.nanoTime();
