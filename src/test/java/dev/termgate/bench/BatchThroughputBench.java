@@ -23,7 +23,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * graph; the scripted model server runs in this JVM. Start-up is the time until the first model request. The
  * ideal is 200 × 200 ms / 8 = 5.0 s after start-up; the target (issue 6) is within 5% of it.
  * Run: {@code mvn -B -o -Pbench test -Dtest=BatchThroughputBench -Dsurefire.failIfNoSpecifiedTests=false}
- * ({@code -Dbench.questions=N} for another count).
+ * ({@code -Dbench.questions=N} for another count). Other settings: {@code -Dbench.minimal=true} runs
+ * {@link MinimalClient} instead of the tool, the same requests with no work around them, which shows what the
+ * harness and the machine cost on their own; {@code -Dbench.jar=true} runs the packaged jar with its class-data
+ * archive (build it first with {@code mvn -o package -Dmaven.test.skip=true} and one {@code ./termgate card});
+ * {@code -Dbench.exchanges=FILE} writes every exchange's times; {@code -Dbench.detail=true} prints more.
  */
 @Tag("bench")
 class BatchThroughputBench {
@@ -104,10 +108,12 @@ class BatchThroughputBench {
 
     /**
      * A model service that has answered before: the scripted server runs in this JVM, and its first answers (class
-     * loading, interpreted code) would otherwise be counted against the tool.
+     * loading, interpreted code) would otherwise be counted against the tool. The warm-up takes the measured path
+     * (the script's delay, with no wait) on as many connections at once as the tool will use.
      */
-    private static void warm(ScriptedModelServer server) throws Exception {
+    private static void warm(ScriptedModelServer server, int connections) throws Exception {
         var http = java.net.http.HttpClient.newHttpClient();
+        var clients = java.util.concurrent.Executors.newFixedThreadPool(connections);
         String body = "{\"model\":\"m\",\"messages\":[{\"role\":\"user\",\"content\":\"warm-up\"}]}";
         var compiler = java.lang.management.ManagementFactory.getCompilationMXBean();
         // Until this JVM's compilers have been idle for half a second, at most 20 rounds (on the CI machine it has
@@ -118,12 +124,19 @@ class BatchThroughputBench {
         long compiled = compiler.getTotalCompilationTime();
         int round = 0;
         for (; round < 20 && System.nanoTime() - quietSince < 500_000_000L; round++) {
-            for (int i = 0; i < 300; i++) {
-                var request = java.net.http.HttpRequest.newBuilder(java.net.URI.create(server.baseUrl() + "/chat/completions"))
-                        .header("Content-Type", "application/json")
-                        .POST(java.net.http.HttpRequest.BodyPublishers.ofString(body)).build();
-                assertEquals(200, http.send(request, java.net.http.HttpResponse.BodyHandlers.ofString()).statusCode());
+            List<java.util.concurrent.Future<?>> sent = new java.util.ArrayList<>();
+            for (int c = 0; c < connections; c++) {
+                sent.add(clients.submit(() -> {
+                    for (int i = 0; i < 300 / connections; i++) {
+                        var request = java.net.http.HttpRequest.newBuilder(java.net.URI.create(server.baseUrl() + "/chat/completions"))
+                                .header("Content-Type", "application/json")
+                                .POST(java.net.http.HttpRequest.BodyPublishers.ofString(body)).build();
+                        assertEquals(200, http.send(request, java.net.http.HttpResponse.BodyHandlers.ofString()).statusCode());
+                    }
+                    return null;
+                }));
             }
+            for (var f : sent) f.get();
             if (compiler.getTotalCompilationTime() != compiled) {
                 compiled = compiler.getTotalCompilationTime();
                 quietSince = System.nanoTime();
@@ -131,6 +144,7 @@ class BatchThroughputBench {
         }
         System.out.printf(Locale.ROOT, "server warm-up: %d rounds of 300 requests, its JVM compiled for %d ms in all%n",
                 round, compiled);
+        clients.shutdown();
     }
 
     @Test
@@ -144,15 +158,18 @@ class BatchThroughputBench {
         long[] last = {0};
         String reply = "```cypher\nMATCH (v:Vessel) RETURN v.name\n```";
         try (ScriptedModelServer server = new ScriptedModelServer(ScriptedModelServer.Protocol.OPENAI, seen -> {
+            boolean measured;
             synchronized (first) {
-                if (!measuring[0]) return ScriptedModelServer.answer(reply);
-                if (first[0] == 0) first[0] = System.nanoTime();
-                if (arrivals.size() < 24) arrivals.add((System.nanoTime() - first[0]) / 1_000_000);
-                last[0] = System.nanoTime();
+                measured = measuring[0];
+                if (measured) {
+                    if (first[0] == 0) first[0] = System.nanoTime();
+                    if (arrivals.size() < 24) arrivals.add((System.nanoTime() - first[0]) / 1_000_000);
+                    last[0] = System.nanoTime();
+                }
             }
-            return ScriptedModelServer.delay(latency, ScriptedModelServer.answer(reply));
+            return ScriptedModelServer.delay(measured ? latency : 0, ScriptedModelServer.answer(reply));
         })) {
-            warm(server);
+            warm(server, jobs);
             synchronized (first) {
                 measuring[0] = true;
             }
@@ -163,14 +180,22 @@ class BatchThroughputBench {
             Path out = dir.resolve("out.jsonl");
             Path log = dir.resolve("log");
             // bash's `times` reports the CPU of the finished child (the JVM the launcher execs into).
-            ProcessBuilder pb = new ProcessBuilder("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc",
+            boolean minimal = Boolean.getBoolean("bench.minimal");
+            ProcessBuilder pb = minimal
+                    ? new ProcessBuilder("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc",
+                    "java", "-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1", "-cp", System.getProperty("java.class.path"),
+                    MinimalClient.class.getName(), server.baseUrl() + "/chat/completions", Integer.toString(n), Integer.toString(jobs))
+                    : new ProcessBuilder("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc",
                     Path.of("termgate").toAbsolutePath().toString(), "batch", "--questions", q.toString(), "--out", out.toString(),
                     "--model", server.modelOption("m"), "--base-url", server.baseUrl(), "--jobs", Integer.toString(jobs),
                     "--no-progress", "--budget", System.getProperty("bench.budget", "1500"));
-            pb.environment().put("TERMGATE_CLASSPATH", System.getProperty("java.class.path"));
+            if (!Boolean.getBoolean("bench.jar")) pb.environment().put("TERMGATE_CLASSPATH", System.getProperty("java.class.path"));
             // For profiling the batch process, e.g. -Dbench.javaOpts=-XX:StartFlightRecording=filename=batch.jfr
             pb.environment().put("TERMGATE_JAVA_OPTS", System.getProperty("bench.javaOpts", ""));
             pb.redirectErrorStream(true).redirectOutput(log.toFile());
+            var self = (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory.getOperatingSystemMXBean();
+            long selfCpu0 = self.getProcessCpuTime();
+            long compiled0 = java.lang.management.ManagementFactory.getCompilationMXBean().getTotalCompilationTime();
             long t0 = System.nanoTime();
             Process p = pb.start();
             java.util.Map<String, Long> threadCpu = new java.util.TreeMap<>();
@@ -190,10 +215,12 @@ class BatchThroughputBench {
                 }
             }
             long t1 = System.nanoTime();
+            long selfCpu = self.getProcessCpuTime() - selfCpu0;
+            long selfCompiled = java.lang.management.ManagementFactory.getCompilationMXBean().getTotalCompilationTime() - compiled0;
             String output = Files.readString(log);
             assertEquals(0, p.exitValue(), output);
-            List<String> lines = Files.readAllLines(out);
-            assertEquals(n, lines.size());
+            List<String> lines = minimal ? List.of() : Files.readAllLines(out);
+            if (!minimal) assertEquals(n, lines.size());
             double startup = (first[0] - t0) / 1e6;
             double wall = (t1 - t0) / 1e6;
             double ideal = n * latency / (double) jobs;
@@ -209,6 +236,9 @@ class BatchThroughputBench {
                 System.out.printf(Locale.ROOT, "batch process CPU %.1f s (%.1f ms per question, start-up included), load average %.2f%n",
                         cpu, 1000 * cpu / n, java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage());
             }
+            // The scripted server shares the tool's cores, which a real model service does not: what it took of them.
+            System.out.printf(Locale.ROOT, "this JVM (scripted server, bench) during the run: %.2f s of CPU, its compilers busy for %d ms%n",
+                    selfCpu / 1e9, selfCompiled);
             StringBuilder top = new StringBuilder();
             byName(threadCpu).entrySet().stream().sorted(java.util.Map.Entry.<String, Long>comparingByValue().reversed()).limit(8)
                     .forEach(e -> top.append(String.format(Locale.ROOT, " %s %.1f s;", e.getKey(), e.getValue() / 100.0)));
@@ -227,6 +257,17 @@ class BatchThroughputBench {
                         + (first[0] - t0) / 1_000_000 + " ms:");
                 timeline.forEach(System.out::println);
             }
+            // Every exchange's times (System.nanoTime in µs, the clock of every process on Linux), to line them up
+            // with traces of the tool or of the network.
+            String dump = System.getProperty("bench.exchanges");
+            if (dump != null) {
+                StringBuilder ex = new StringBuilder();
+                for (var e : server.exchanges()) {
+                    ex.append(String.format(Locale.ROOT, "%d %d %d %d%n", e.clientPort(), e.requestNanos() / 1000,
+                            e.answeringNanos() / 1000, e.repliedNanos() / 1000));
+                }
+                Files.writeString(Path.of(dump), ex.toString());
+            }
             turnarounds(server.exchanges(), latency);
             // --jobs is the most requests the model may have at once: the figure is void if the tool exceeded it.
             int atOnce = ScriptedModelServer.mostAtOnce(server.exchanges());
@@ -237,6 +278,7 @@ class BatchThroughputBench {
             System.out.printf(Locale.ROOT, "last request arrived %.0f ms after the first; the process ended %.0f ms after its reply%n",
                     (last[0] - first[0]) / 1e6, (t1 - last[0]) / 1e6 - latency);
             // Means by quarter of the output (the order questions finished): the first shows the cold start.
+            if (minimal) return;
             double[][] quarter = new double[3][4];
             String[] keys = {"card_ms", "translate_ms", "run_ms"};
             for (int i = 0; i < lines.size(); i++) {
