@@ -24,7 +24,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * ideal is 200 × 200 ms / 8 = 5.0 s after start-up; the target (issue 6) is within 5% of it.
  * Run: {@code mvn -B -o -Pbench test -Dtest=BatchThroughputBench -Dsurefire.failIfNoSpecifiedTests=false}
  * ({@code -Dbench.questions=N} for another count). Other settings: {@code -Dbench.minimal=true} runs
- * {@link MinimalClient} instead of the tool, the same requests with no work around them, which shows what the
+ * {@link MinimalClient} instead of the tool, the same request pattern (one-line bodies) with no work around it, which shows what the
  * harness and the machine cost on their own; {@code -Dbench.jar=true} runs the packaged jar with its class-data
  * archive (build it first with {@code mvn -o package -Dmaven.test.skip=true} and one {@code ./termgate card});
  * {@code -Dbench.exchanges=FILE} writes every exchange's times; {@code -Dbench.detail=true} prints more.
@@ -223,14 +223,15 @@ class BatchThroughputBench {
             Path log = dir.resolve("log");
             // bash's `times` reports the CPU of the finished child (the JVM the launcher execs into).
             boolean minimal = Boolean.getBoolean("bench.minimal");
-            ProcessBuilder pb = minimal
-                    ? new ProcessBuilder("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc",
-                    "java", "-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1", "-cp", System.getProperty("java.class.path"),
+            List<String> command = minimal
+                    ? List.of("java", "-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1", "-cp", System.getProperty("java.class.path"),
                     MinimalClient.class.getName(), server.baseUrl() + "/chat/completions", Integer.toString(n), Integer.toString(jobs))
-                    : new ProcessBuilder("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc",
-                    Path.of("termgate").toAbsolutePath().toString(), "batch", "--questions", q.toString(), "--out", out.toString(),
+                    : List.of(Path.of("termgate").toAbsolutePath().toString(), "batch", "--questions", q.toString(), "--out", out.toString(),
                     "--model", server.modelOption("m"), "--base-url", server.baseUrl(), "--jobs", Integer.toString(jobs),
                     "--no-progress", "--budget", System.getProperty("bench.budget", "1500"));
+            List<String> wrapped = new java.util.ArrayList<>(List.of("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc"));
+            wrapped.addAll(command);
+            ProcessBuilder pb = new ProcessBuilder(wrapped);
             if (!Boolean.getBoolean("bench.jar")) pb.environment().put("TERMGATE_CLASSPATH", System.getProperty("java.class.path"));
             // For profiling the batch process, e.g. -Dbench.javaOpts=-XX:StartFlightRecording=filename=batch.jfr
             pb.environment().put("TERMGATE_JAVA_OPTS", System.getProperty("bench.javaOpts", ""));
