@@ -33,6 +33,9 @@ final class ModelHttpClient implements HttpClient {
 
     private final java.net.http.HttpClient http;
     private final Duration readTimeout;
+    private final Duration connectTimeout;
+    /** Plain-HTTP transports by host and port. */
+    private final Map<String, PlainHttp> plain = new java.util.concurrent.ConcurrentHashMap<>();
     private final Optional<Secret> key;
     private final String modelName;
     /** Requests out at a time, when limited. */
@@ -57,6 +60,7 @@ final class ModelHttpClient implements HttpClient {
             if (!before.contains(t) && t.getName().endsWith("SelectorManager")) SELECTORS.add(t);
         }
         this.readTimeout = readTimeout;
+        this.connectTimeout = connectTimeout;
         this.key = key;
         this.modelName = modelName;
         this.relay = inFlight > 0 ? Optional.of(new RequestRelay(inFlight)) : Optional.empty();
@@ -93,23 +97,27 @@ final class ModelHttpClient implements HttpClient {
 
     @Override
     public SuccessfulHttpResponse execute(HttpRequest request) {
-        java.net.http.HttpRequest.Builder b = java.net.http.HttpRequest.newBuilder(URI.create(request.url()))
-                .timeout(readTimeout);
-        for (Map.Entry<String, List<String>> h : request.headers().entrySet()) {
-            if (RESTRICTED.contains(h.getKey().toLowerCase(Locale.ROOT))) continue;
-            for (String v : h.getValue()) b.header(h.getKey(), v);
-        }
-        String body = request.body();
-        switch (request.method()) {
-            case GET -> b.GET();
-            case DELETE -> b.DELETE();
-            default -> b.method(request.method().name(), body == null
-                    ? java.net.http.HttpRequest.BodyPublishers.noBody()
-                    : java.net.http.HttpRequest.BodyPublishers.ofString(body, StandardCharsets.UTF_8));
-        }
+        URI uri = URI.create(request.url());
+        Map<String, List<String>> headers = new java.util.LinkedHashMap<>();
+        request.headers().forEach((k, v) -> {
+            if (!RESTRICTED.contains(k.toLowerCase(Locale.ROOT))) headers.put(k, v);
+        });
+        String method = switch (request.method()) {
+            case GET -> "GET";
+            case DELETE -> "DELETE";
+            default -> request.method().name();
+        };
+        byte[] body = request.method() == dev.langchain4j.http.client.HttpMethod.GET
+                || request.method() == dev.langchain4j.http.client.HttpMethod.DELETE || request.body() == null
+                ? null : request.body().getBytes(StandardCharsets.UTF_8);
         Got response;
         try {
-            response = exchange(b.build());
+            response = PlainHttp.serves(uri) ? exchangePlain(plain(uri), method, uri, headers, body)
+                    : exchange(jdkRequest(uri, method, headers, body));
+        } catch (java.nio.channels.ClosedByInterruptException e) {
+            // The shell's Ctrl-C while a plain-HTTP reply was awaited.
+            Thread.currentThread().interrupt();
+            throw new ServiceFailure(ServiceFailure.Kind.FATAL, "cancelled", Optional.empty());
         } catch (HttpTimeoutException e) {
             throw new ServiceFailure(ServiceFailure.Kind.RETRIABLE,
                     "no answer from " + host(request) + " within " + seconds(readTimeout), Optional.empty());
@@ -128,10 +136,68 @@ final class ModelHttpClient implements HttpClient {
         throw failure(status, response.body(), response.headers().firstValue("Retry-After"), request);
     }
 
+    private java.net.http.HttpRequest jdkRequest(URI uri, String method, Map<String, List<String>> headers, byte[] body) {
+        java.net.http.HttpRequest.Builder b = java.net.http.HttpRequest.newBuilder(uri).timeout(readTimeout);
+        headers.forEach((k, vs) -> vs.forEach(v -> b.header(k, v)));
+        return b.method(method, body == null ? java.net.http.HttpRequest.BodyPublishers.noBody()
+                : java.net.http.HttpRequest.BodyPublishers.ofByteArray(body)).build();
+    }
+
+    /** The plain-socket transport for an address's host and port, made on first use. */
+    private PlainHttp plain(URI uri) {
+        return plain.computeIfAbsent(uri.getHost() + ":" + uri.getPort(), k -> new PlainHttp(uri, connectTimeout));
+    }
+
+    /**
+     * Writes the request and reads its reply on this thread; when requests are limited it may first wait for a
+     * slot, and a thread that has just read a reply may write this request for it.
+     */
+    private Got exchangePlain(PlainHttp http, String method, URI uri, Map<String, List<String>> headers, byte[] body)
+            throws IOException, InterruptedException {
+        if (relay.isEmpty()) {
+            PlainHttp.Written w = http.write(method, uri, headers, body, readTimeout);
+            return Got.of(http.read(w, method, uri, headers, body, readTimeout));
+        }
+        java.util.concurrent.atomic.AtomicReference<Runnable> release = new java.util.concurrent.atomic.AtomicReference<>();
+        java.util.concurrent.CompletableFuture<PlainHttp.Written> written = relay.get().submitHolding(done -> {
+            release.set(done);
+            try {
+                return java.util.concurrent.CompletableFuture.completedFuture(http.write(method, uri, headers, body, readTimeout));
+            } catch (IOException e) {
+                return java.util.concurrent.CompletableFuture.failedFuture(e);
+            }
+        });
+        PlainHttp.Written w;
+        try {
+            w = written.get();
+        } catch (InterruptedException e) {
+            // Withdrawn if it was still waiting; written meanwhile: its connection is dropped and the slot freed.
+            if (!written.cancel(false)) {
+                PlainHttp.Written late = written.getNow(null);
+                if (late != null) http.abandon(late);
+                release.get().run();
+            }
+            throw e;
+        } catch (java.util.concurrent.ExecutionException e) {
+            if (e.getCause() instanceof IOException io) throw io;
+            if (e.getCause() instanceof RuntimeException r) throw r;
+            throw new IOException(e.getCause());
+        }
+        try {
+            return Got.of(http.read(w, method, uri, headers, body, readTimeout));
+        } finally {
+            release.get().run();
+        }
+    }
+
     /** A reply as read: status, headers, body. */
     private record Got(int status, java.net.http.HttpHeaders headers, String body) {
         static Got of(HttpResponse<String> r) {
             return new Got(r.statusCode(), r.headers(), r.body());
+        }
+
+        static Got of(PlainHttp.Reply r) {
+            return new Got(r.status(), r.headers(), r.body());
         }
     }
 

@@ -17,10 +17,13 @@ final class RequestRelay {
     /** A request waiting for a slot, and where its reply goes. */
     private static final class Waiting<T> {
         final Function<Runnable, CompletableFuture<T>> send;
+        /** Whether the sent request's completion frees its slot, or only the signal (and a failure) does. */
+        final boolean freedByCompletion;
         final CompletableFuture<T> reply = new CompletableFuture<>();
 
-        Waiting(Function<Runnable, CompletableFuture<T>> send) {
+        Waiting(Function<Runnable, CompletableFuture<T>> send, boolean freedByCompletion) {
             this.send = send;
+            this.freedByCompletion = freedByCompletion;
         }
     }
 
@@ -39,7 +42,18 @@ final class RequestRelay {
      * request's completion gives it too. Cancelling the result before the request started withdraws it.
      */
     <T> CompletableFuture<T> submit(Function<Runnable, CompletableFuture<T>> send) {
-        Waiting<T> w = new Waiting<>(send);
+        return enqueue(new Waiting<>(send, true));
+    }
+
+    /**
+     * As {@link #submit}, for a sender whose result comes before its reply (a request written, its reply still
+     * to be read): the slot is held until the sender calls the signal it was given, or its result fails.
+     */
+    <T> CompletableFuture<T> submitHolding(Function<Runnable, CompletableFuture<T>> send) {
+        return enqueue(new Waiting<>(send, false));
+    }
+
+    private <T> CompletableFuture<T> enqueue(Waiting<T> w) {
         boolean now;
         synchronized (this) {
             now = out < limit;
@@ -69,7 +83,7 @@ final class RequestRelay {
             return;
         }
         sent.whenComplete((reply, failure) -> {
-            done.run();
+            if (w.freedByCompletion || failure != null) done.run();
             if (failure != null) w.reply.completeExceptionally(failure);
             else w.reply.complete(reply);
         });

@@ -105,4 +105,23 @@ class RequestRelayTest {
         assertEquals("A", first.join());
         assertEquals(1, relay.out());
     }
+
+    @Test
+    void aHeldSlotIsFreedByItsSignalOrAFailureNotByTheWrite() {
+        RequestRelay relay = new RequestRelay(1);
+        List<Runnable> held = new ArrayList<>();
+        CompletableFuture<String> written = relay.submitHolding(done -> {
+            held.add(done);
+            return CompletableFuture.completedFuture("written");
+        });
+        assertEquals("written", written.join());
+        send(relay, "next");
+        assertEquals(List.of(), order, "written is not answered: the slot stays taken");
+        held.get(0).run();
+        assertEquals(List.of("next"), order);
+        sent.get(0).complete("N");
+        CompletableFuture<String> failed = relay.submitHolding(done -> CompletableFuture.failedFuture(new java.io.IOException("refused")));
+        assertTrue(failed.isCompletedExceptionally());
+        assertEquals(0, relay.out(), "a failed write gives its slot back");
+    }
 }
