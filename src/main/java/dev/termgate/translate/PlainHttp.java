@@ -270,15 +270,26 @@ final class PlainHttp {
             }
         }
 
-        /** One header line without its line end; the first line of a reply may meet the end of the stream. */
+        /**
+         * One header line without its line end. Before the first byte of a reply, the end of the stream or a reset
+         * connection means the server had closed it (kept alive too long): {@link EOFException}.
+         */
         private String line(boolean first) throws IOException {
             ByteArrayOutputStream b = new ByteArrayOutputStream(64);
+            if (first) {
+                int c;
+                try {
+                    c = in.read();
+                } catch (java.net.SocketException reset) {
+                    throw new EOFException("reset before a reply");
+                }
+                if (c < 0) throw new EOFException();
+                if (c != '\n') b.write(c);
+                else return "";
+            }
             while (true) {
                 int c = in.read();
-                if (c < 0) {
-                    if (first && b.size() == 0) throw new EOFException();
-                    throw new IOException("the reply ended early");
-                }
+                if (c < 0) throw new IOException("the reply ended early");
                 if (c == '\n') break;
                 if (b.size() >= MAX_HEADER_LINE) throw new IOException("a header line is too long");
                 b.write(c);

@@ -41,6 +41,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 class PlainHttpTest {
 
     private static final Duration SHORT = Duration.ofSeconds(5);
+    /** A script's answer that resets the connection instead of replying. */
+    private static final String RESET = "reset";
 
     /** A server on 127.0.0.1 that reads whole requests and answers each with what the script gives. */
     private static final class RawServer implements AutoCloseable {
@@ -87,6 +89,10 @@ class PlainHttpTest {
                     requests.add(request);
                     String reply = script.apply(n);
                     if (reply == null) return;
+                    if (reply.equals(RESET)) {
+                        s.setSoLinger(true, 0); // closing now sends a reset
+                        return;
+                    }
                     out.write(reply.getBytes(StandardCharsets.UTF_8));
                     out.flush();
                     if (reply.contains("\r\nConnection: close\r\n") || reply.startsWith("HTTP/1.0")) return;
@@ -198,6 +204,15 @@ class PlainHttpTest {
         // The server answers one request per connection but does not say so: the second request finds the
         // kept connection closed and goes out again on a new one.
         RawServer s = server(n -> n == 0 ? ok("{\"ok\":true}") : null);
+        PlainHttp http = new PlainHttp(s.uri(), SHORT);
+        assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
+        assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
+        assertEquals(2, s.connections.get());
+    }
+
+    @Test
+    void aKeptAliveConnectionTheServerResetIsReplacedOnce() throws Exception {
+        RawServer s = server(n -> n == 0 ? ok("{\"ok\":true}") : RESET);
         PlainHttp http = new PlainHttp(s.uri(), SHORT);
         assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
         assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
