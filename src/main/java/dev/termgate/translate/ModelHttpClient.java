@@ -102,11 +102,7 @@ final class ModelHttpClient implements HttpClient {
         request.headers().forEach((k, v) -> {
             if (!RESTRICTED.contains(k.toLowerCase(Locale.ROOT))) headers.put(k, v);
         });
-        String method = switch (request.method()) {
-            case GET -> "GET";
-            case DELETE -> "DELETE";
-            default -> request.method().name();
-        };
+        String method = request.method().name();
         byte[] body = request.method() == dev.langchain4j.http.client.HttpMethod.GET
                 || request.method() == dev.langchain4j.http.client.HttpMethod.DELETE || request.body() == null
                 ? null : request.body().getBytes(StandardCharsets.UTF_8);
@@ -156,7 +152,7 @@ final class ModelHttpClient implements HttpClient {
             throws IOException, InterruptedException {
         if (relay.isEmpty()) {
             PlainHttp.Written w = http.write(method, uri, headers, body, readTimeout);
-            return Got.of(http.read(w, method, uri, headers, body, readTimeout));
+            return Got.of(http.read(w));
         }
         java.util.concurrent.atomic.AtomicReference<Runnable> release = new java.util.concurrent.atomic.AtomicReference<>();
         java.util.concurrent.CompletableFuture<PlainHttp.Written> written = relay.get().submitHolding(done -> {
@@ -173,8 +169,7 @@ final class ModelHttpClient implements HttpClient {
         } catch (InterruptedException e) {
             // Withdrawn if it was still waiting; written meanwhile: its connection is dropped and the slot freed.
             if (!written.cancel(false)) {
-                PlainHttp.Written late = written.getNow(null);
-                if (late != null) http.abandon(late);
+                if (!written.isCompletedExceptionally()) http.abandon(written.join());
                 release.get().run();
             }
             throw e;
@@ -184,7 +179,7 @@ final class ModelHttpClient implements HttpClient {
             throw new IOException(e.getCause());
         }
         try {
-            return Got.of(http.read(w, method, uri, headers, body, readTimeout));
+            return Got.of(http.read(w));
         } finally {
             release.get().run();
         }

@@ -10,9 +10,9 @@ import java.net.InetSocketAddress;
 import java.net.Socket;
 import java.net.SocketTimeoutException;
 import java.net.URI;
-import java.nio.channels.SocketChannel;
 import java.net.http.HttpHeaders;
 import java.net.http.HttpTimeoutException;
+import java.nio.channels.SocketChannel;
 import java.nio.charset.StandardCharsets;
 import java.time.Duration;
 import java.util.ArrayList;
@@ -35,14 +35,18 @@ final class PlainHttp {
     /** A reply as read. */
     record Reply(int status, HttpHeaders headers, String body) {}
 
-    /** A request written on a connection, whose reply is still to be read. */
+    /** A request written on a connection, whose reply is still to be read; kept whole, to write again once. */
     static final class Written {
         private final Connection connection;
         private final boolean reused;
+        private final byte[] request;
+        private final Duration readTimeout;
 
-        private Written(Connection connection, boolean reused) {
+        private Written(Connection connection, boolean reused, byte[] request, Duration readTimeout) {
             this.connection = connection;
             this.reused = reused;
+            this.request = request;
+            this.readTimeout = readTimeout;
         }
     }
 
@@ -80,29 +84,28 @@ final class PlainHttp {
         if (c != null) {
             try {
                 c.send(request, readTimeout);
-                return new Written(c, true);
+                return new Written(c, true, request, readTimeout);
             } catch (IOException stale) {
                 c.close();
             }
         }
         c = open();
         c.send(request, readTimeout);
-        return new Written(c, false);
+        return new Written(c, false, request, readTimeout);
     }
 
     /**
      * Reads the reply of a written request. A kept-alive connection the server had already closed gives no
      * byte at all: the request is written once more on a new connection (nothing of it can have been answered).
      */
-    Reply read(Written w, String method, URI uri, Map<String, List<String>> headers, byte[] body, Duration readTimeout)
-            throws IOException {
+    Reply read(Written w) throws IOException {
         try {
             return finish(w.connection, w.connection.reply());
         } catch (EOFException closedBeforeReply) {
             w.connection.close();
             if (!w.reused) throw new IOException("the connection was closed before a reply");
             Connection c = open();
-            c.send(encode(method, uri, headers, body), readTimeout);
+            c.send(w.request, w.readTimeout);
             return finish(c, c.reply());
         } catch (SocketTimeoutException e) {
             w.connection.close();
@@ -123,12 +126,6 @@ final class PlainHttp {
     /** Drops the connection of a request whose reply will not be read. */
     void abandon(Written w) {
         w.connection.close();
-    }
-
-    /** Closes the idle connections. */
-    void close() {
-        Connection c;
-        while ((c = idle.pollFirst()) != null) c.close();
     }
 
     /**
