@@ -31,7 +31,8 @@ final class ModelHttpClient implements HttpClient {
     private static final Set<String> RESTRICTED = Set.of("host", "content-length", "connection", "expect", "upgrade");
     private static final int MAX_ERROR_TEXT = 300;
 
-    private final java.net.http.HttpClient http;
+    /** The JDK client, for https:// and proxied addresses. */
+    private final java.util.function.Supplier<java.net.http.HttpClient> http;
     private final Duration readTimeout;
     private final Duration connectTimeout;
     /** Plain-HTTP transports by host and port. */
@@ -46,8 +47,19 @@ final class ModelHttpClient implements HttpClient {
 
     /** @param inFlight the most requests out at a time; 0 for no limit */
     ModelHttpClient(Duration connectTimeout, Duration readTimeout, Optional<Secret> key, String modelName, int inFlight) {
+        // Made on first use: a service at an http:// address never needs it, nor its selector thread.
+        this.http = Memo.of(() -> jdkClient(connectTimeout));
+        this.readTimeout = readTimeout;
+        this.connectTimeout = connectTimeout;
+        this.key = key;
+        this.modelName = modelName;
+        this.relay = inFlight > 0 ? Optional.of(new RequestRelay(inFlight)) : Optional.empty();
+    }
+
+    /** A JDK client for https:// and proxied addresses; its selector thread is remembered for {@link #stopSelectors}. */
+    private static java.net.http.HttpClient jdkClient(Duration connectTimeout) {
         Set<Thread> before = Thread.getAllStackTraces().keySet();
-        this.http = java.net.http.HttpClient.newBuilder()
+        java.net.http.HttpClient client = java.net.http.HttpClient.newBuilder()
                 .version(java.net.http.HttpClient.Version.HTTP_1_1)
                 .connectTimeout(connectTimeout)
                 .followRedirects(java.net.http.HttpClient.Redirect.NORMAL)
@@ -59,11 +71,12 @@ final class ModelHttpClient implements HttpClient {
         for (Thread t : Thread.getAllStackTraces().keySet()) {
             if (!before.contains(t) && t.getName().endsWith("SelectorManager")) SELECTORS.add(t);
         }
-        this.readTimeout = readTimeout;
-        this.connectTimeout = connectTimeout;
-        this.key = key;
-        this.modelName = modelName;
-        this.relay = inFlight > 0 ? Optional.of(new RequestRelay(inFlight)) : Optional.empty();
+        return client;
+    }
+
+    /** The JDK client, made now if it was not yet (tests). */
+    java.net.http.HttpClient jdk() {
+        return http.get();
     }
 
     /**
@@ -199,10 +212,10 @@ final class ModelHttpClient implements HttpClient {
     /** Sends a request and waits for its reply; when requests are limited, it may first wait for a free slot. */
     private Got exchange(java.net.http.HttpRequest request) throws IOException, InterruptedException {
         HttpResponse.BodyHandler<String> text = HttpResponse.BodyHandlers.ofString(StandardCharsets.UTF_8);
-        if (relay.isEmpty()) return Got.of(http.send(request, text));
+        if (relay.isEmpty()) return Got.of(http.get().send(request, text));
         java.util.concurrent.CompletableFuture<Got> got = new java.util.concurrent.CompletableFuture<>();
         java.util.concurrent.CompletableFuture<HttpResponse<String>> sent = relay.get().submit(done ->
-                http.sendAsync(request, info -> new Signalling(text.apply(info), info, done, got)));
+                http.get().sendAsync(request, info -> new Signalling(text.apply(info), info, done, got)));
         // Failures that have no body (time-outs, refused connections) come only this way.
         sent.whenComplete((r, failure) -> {
             if (failure != null) got.completeExceptionally(failure);

@@ -24,8 +24,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * ideal is 200 × 200 ms / 8 = 5.0 s after start-up; the target (issue 6) is within 5% of it.
  * Run: {@code mvn -B -o -Pbench test -Dtest=BatchThroughputBench -Dsurefire.failIfNoSpecifiedTests=false}
  * ({@code -Dbench.questions=N} for another count). Other settings: {@code -Dbench.minimal=true} runs
- * {@link MinimalClient} instead of the tool, the same request pattern (one-line bodies, kept-alive sockets) with no work around it, which shows what the
- * harness and the machine cost on their own; {@code -Dbench.jar=true} runs the packaged jar with its class-data
+ * {@link MinimalClient} instead of the tool, the same request pattern (one-line bodies, kept-alive sockets) with
+ * no work around it, which shows what the harness and the machine cost on their own; {@code -Dbench.jar=true} runs the packaged jar with its class-data
  * archive (build it first with {@code mvn -o package -Dmaven.test.skip=true} and one {@code ./termgate card});
  * {@code -Dbench.exchanges=FILE} writes every exchange's times; {@code -Dbench.detail=true} prints more.
  */

@@ -215,16 +215,17 @@ class PlainHttpTest {
     void aKeptAliveConnectionTheServerClosedIsReplacedOnce() throws Exception {
         // The server answers one request per connection but does not say so: the second request finds the
         // kept connection closed and goes out again on a new one.
-        RawServer s = server(n -> n == 0 ? ok("{\"ok\":true}") : null);
-        PlainHttp http = new PlainHttp(s.uri(), SHORT);
-        assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
-        assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
-        assertEquals(2, s.connections.get());
+        assertSecondRequestGoesOnANewConnection(null);
     }
 
     @Test
     void aKeptAliveConnectionTheServerResetIsReplacedOnce() throws Exception {
-        RawServer s = server(n -> n == 0 ? ok("{\"ok\":true}") : RESET);
+        assertSecondRequestGoesOnANewConnection(RESET);
+    }
+
+    /** The server answers the first request of a connection, then does {@code second} (close or reset). */
+    private void assertSecondRequestGoesOnANewConnection(String second) throws Exception {
+        RawServer s = server(n -> n == 0 ? ok("{\"ok\":true}") : second);
         PlainHttp http = new PlainHttp(s.uri(), SHORT);
         assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
         assertEquals("{\"ok\":true}", post(http, s.uri(), "{}", SHORT).body());
