@@ -28,6 +28,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * no work around it, which shows what the harness and the machine cost on their own; {@code -Dbench.jar=true} runs the packaged jar with its class-data
  * archive (build it first with {@code mvn -o package -Dmaven.test.skip=true} and one {@code ./termgate card});
  * {@code -Dbench.exchanges=FILE} writes every exchange's times; {@code -Dbench.detail=true} prints more.
+ * To compare two versions or settings under the same host load: {@code -Dbench.runs=N} runs N measured batches
+ * against the one warmed server, and with {@code -Dbench.launcherB=PATH} (another checkout's {@code termgate},
+ * jar mode) or {@code -Dbench.javaOptsB=OPTS} it alternates the two (A first) and prints each one's median;
+ * {@code -Dbench.keepLog=FILE} appends the batch processes' output (for {@code -Xlog:gc}, say) to FILE.
  */
 @Tag("bench")
 class BatchThroughputBench {
@@ -212,21 +216,62 @@ class BatchThroughputBench {
             return ScriptedModelServer.delay(measured ? latency : 0, ScriptedModelServer.answer(reply));
         })) {
             warm(server, jobs);
-            synchronized (first) {
-                measuring[0] = true;
+            // bench.runs > 1: several batches against the same warmed server, alternating bench.javaOpts with
+            // bench.javaOptsB when that is given (arm A first), so that two settings meet the same host load.
+            int runs = Integer.getInteger("bench.runs", 1);
+            String launcher = Path.of("termgate").toAbsolutePath().toString();
+            String opts = System.getProperty("bench.javaOpts", "");
+            List<Arm> arms = System.getProperty("bench.javaOptsB") == null && System.getProperty("bench.launcherB") == null
+                    ? List.of(new Arm(launcher, opts))
+                    : List.of(new Arm(launcher, opts), new Arm(System.getProperty("bench.launcherB", launcher),
+                    System.getProperty("bench.javaOptsB", opts)));
+            java.util.Map<Arm, List<Double>> overheads = new java.util.LinkedHashMap<>();
+            for (int run = 0; run < runs * arms.size(); run++) {
+                Arm arm = arms.get(run % arms.size());
+                synchronized (first) {
+                    first[0] = 0;
+                    arrivals.clear();
+                    measuring[0] = true;
+                }
+                server.forgetExchanges();
+                if (runs * arms.size() > 1) System.out.println("== run " + (run + 1) + ": " + arm);
+                double overhead = measureOnce(server, dir, n, latency, jobs, arm, first, last, arrivals);
+                overheads.computeIfAbsent(arm, k -> new java.util.ArrayList<>()).add(overhead);
             }
-            server.forgetExchanges();
+            if (runs * arms.size() > 1) {
+                overheads.forEach((arm, list) -> {
+                    List<Double> sorted = list.stream().sorted().toList();
+                    System.out.printf(Locale.ROOT, "overheads with %s: %s; median %.1f%%%n", arm,
+                            list.stream().map(v -> String.format(Locale.ROOT, "%.1f", v)).toList(), sorted.get(sorted.size() / 2));
+                });
+            }
+        }
+    }
+
+    /** What one measured batch runs: the launcher and the JVM options it passes on. */
+    private record Arm(String launcher, String javaOpts) {
+        @Override
+        public String toString() {
+            return launcher + " [" + javaOpts + "]";
+        }
+    }
+
+    /** One measured batch against the warmed server; returns the overhead in percent of the ideal. */
+    private static double measureOnce(ScriptedModelServer server, Path dir, int n, long latency, int jobs, Arm arm,
+                                      long[] first, long[] last, List<Long> arrivals) throws Exception {
+        {
             StringBuilder sb = new StringBuilder();
             for (int i = 0; i < n; i++) sb.append("question number ").append(i).append('\n');
             Path q = Files.writeString(dir.resolve("q.txt"), sb.toString());
             Path out = dir.resolve("out.jsonl");
+            Files.deleteIfExists(out);
             Path log = dir.resolve("log");
             // bash's `times` reports the CPU of the finished child (the JVM the launcher execs into).
             boolean minimal = Boolean.getBoolean("bench.minimal");
             List<String> command = minimal
                     ? List.of("java", "-XX:+UseSerialGC", "-XX:TieredStopAtLevel=1", "-cp", System.getProperty("java.class.path"),
                     MinimalClient.class.getName(), server.baseUrl() + "/chat/completions", Integer.toString(n), Integer.toString(jobs))
-                    : List.of(Path.of("termgate").toAbsolutePath().toString(), "batch", "--questions", q.toString(), "--out", out.toString(),
+                    : List.of(arm.launcher(), "batch", "--questions", q.toString(), "--out", out.toString(),
                     "--model", server.modelOption("m"), "--base-url", server.baseUrl(), "--jobs", Integer.toString(jobs),
                     "--no-progress", "--budget", System.getProperty("bench.budget", "1500"));
             List<String> wrapped = new java.util.ArrayList<>(List.of("bash", "-c", "\"$0\" \"$@\"; rc=$?; times; exit $rc"));
@@ -234,7 +279,7 @@ class BatchThroughputBench {
             ProcessBuilder pb = new ProcessBuilder(wrapped);
             if (!Boolean.getBoolean("bench.jar")) pb.environment().put("TERMGATE_CLASSPATH", System.getProperty("java.class.path"));
             // For profiling the batch process, e.g. -Dbench.javaOpts=-XX:StartFlightRecording=filename=batch.jfr
-            pb.environment().put("TERMGATE_JAVA_OPTS", System.getProperty("bench.javaOpts", ""));
+            pb.environment().put("TERMGATE_JAVA_OPTS", arm.javaOpts());
             pb.redirectErrorStream(true).redirectOutput(log.toFile());
             var self = (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory.getOperatingSystemMXBean();
             long selfCpu0 = self.getProcessCpuTime();
@@ -261,6 +306,10 @@ class BatchThroughputBench {
             long selfCpu = self.getProcessCpuTime() - selfCpu0;
             long selfCompiled = java.lang.management.ManagementFactory.getCompilationMXBean().getTotalCompilationTime() - compiled0;
             String output = Files.readString(log);
+            String keep = System.getProperty("bench.keepLog");
+            if (keep != null) {
+                Files.writeString(Path.of(keep), output, java.nio.file.StandardOpenOption.CREATE, java.nio.file.StandardOpenOption.APPEND);
+            }
             assertEquals(0, p.exitValue(), output);
             List<String> lines = minimal ? List.of() : Files.readAllLines(out);
             if (!minimal) assertEquals(n, lines.size());
@@ -268,9 +317,10 @@ class BatchThroughputBench {
             double wall = (t1 - t0) / 1e6;
             double ideal = n * latency / (double) jobs;
             double afterStartup = wall - startup;
+            double overhead = 100 * (afterStartup - ideal) / ideal;
             System.out.printf(Locale.ROOT, "batch bench: %d questions, %d ms latency, %d jobs: wall %.0f ms, start-up %.0f ms, "
                     + "after start-up %.0f ms, ideal %.0f ms, overhead %.1f%%%n", n, latency, jobs, wall, startup, afterStartup,
-                    ideal, 100 * (afterStartup - ideal) / ideal);
+                    ideal, overhead);
             // CPU is the figure load on the machine inflates least: it tells whether a change made less work.
             Matcher m = Pattern.compile("(\\d+)m([\\d.]+)s (\\d+)m([\\d.]+)s\\s*$").matcher(output.strip());
             if (m.find()) {
@@ -321,7 +371,7 @@ class BatchThroughputBench {
             System.out.printf(Locale.ROOT, "last request arrived %.0f ms after the first; the process ended %.0f ms after its reply%n",
                     (last[0] - first[0]) / 1e6, (t1 - last[0]) / 1e6 - latency);
             // Means by quarter of the output (the order questions finished): the first shows the cold start.
-            if (minimal) return;
+            if (minimal) return overhead;
             double[][] quarter = new double[3][4];
             String[] keys = {"card_ms", "translate_ms", "run_ms"};
             for (int i = 0; i < lines.size(); i++) {
@@ -334,6 +384,7 @@ class BatchThroughputBench {
                         (quarter[k][0] + quarter[k][1] + quarter[k][2] + quarter[k][3]) / 4);
             }
             // Speed is printed, never asserted (figures go to the README).
+            return overhead;
         }
     }
 }
