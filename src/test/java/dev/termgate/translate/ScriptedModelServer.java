@@ -15,6 +15,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.CopyOnWriteArrayList;
 import java.util.concurrent.Executors;
+import java.util.concurrent.TimeUnit;
 import java.util.function.Function;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -90,6 +91,7 @@ public final class ScriptedModelServer implements AutoCloseable {
     public sealed interface Action {
         record Answer(String text, int promptTokens, int completionTokens) implements Action {}
         record Status(int code, String body, Map<String, String> headers) implements Action {}
+        /** Answers {@code then} no sooner than {@code millis} after the request was read (delays add up). */
         record Delay(long millis, Action then) implements Action {}
     }
 
@@ -186,9 +188,15 @@ public final class ScriptedModelServer implements AutoCloseable {
             Seen s = new Seen(x.getRequestURI().getPath(), JsonParser.parseString(body).getAsJsonObject(), x.getRequestHeaders());
             seen.add(s);
             Action a = script.apply(s);
+            // A delay counts from the request's arrival, as a service with a fixed latency answers: the time this
+            // server takes to parse the body and run the script is part of it, not added to it.
+            long due = requestNanos;
             while (a instanceof Action.Delay d) {
+                due += TimeUnit.MILLISECONDS.toNanos(d.millis());
                 try {
-                    Thread.sleep(d.millis());
+                    for (long left = due - System.nanoTime(); left > 0; left = due - System.nanoTime()) {
+                        TimeUnit.NANOSECONDS.sleep(left);
+                    }
                 } catch (InterruptedException e) {
                     return;
                 }
