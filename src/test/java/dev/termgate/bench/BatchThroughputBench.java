@@ -30,7 +30,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * {@code -Dbench.exchanges=FILE} writes every exchange's times; {@code -Dbench.detail=true} prints more.
  * To compare two versions or settings under the same host load: {@code -Dbench.runs=N} runs N measured batches
  * against the one warmed server, and with {@code -Dbench.launcherB=PATH} (another checkout's {@code termgate},
- * jar mode) or {@code -Dbench.javaOptsB=OPTS} it alternates the two (A first) and prints each one's median;
+ * jar mode; {@code -Dbench.launcher=PATH} replaces A's) or {@code -Dbench.javaOptsB=OPTS} it alternates the two
+ * (A first) and prints each one's median;
  * {@code -Dbench.keepLog=FILE} appends the batch processes' output (for {@code -Xlog:gc}, say) to FILE.
  */
 @Tag("bench")
@@ -219,7 +220,7 @@ class BatchThroughputBench {
             // bench.runs > 1: several batches against the same warmed server, alternating bench.javaOpts with
             // bench.javaOptsB when that is given (arm A first), so that two settings meet the same host load.
             int runs = Integer.getInteger("bench.runs", 1);
-            String launcher = Path.of("termgate").toAbsolutePath().toString();
+            String launcher = System.getProperty("bench.launcher", Path.of("termgate").toAbsolutePath().toString());
             String opts = System.getProperty("bench.javaOpts", "");
             List<Arm> arms = System.getProperty("bench.javaOptsB") == null && System.getProperty("bench.launcherB") == null
                     ? List.of(new Arm(launcher, opts))
