@@ -111,7 +111,7 @@ public final class BatchRun {
         } finally {
             if (done) {
                 // Every task has returned and the workers are idle: they end on their own. Waiting for them to
-                // end took 2.5-5 ms between the last answer and the exit (traces in BatchThroughputBench's runs).
+                // end took 2.5-5 ms between the last answer and the exit (temporary traces, BatchThroughputBench).
                 pool.shutdown();
             } else {
                 pool.shutdownNow();
