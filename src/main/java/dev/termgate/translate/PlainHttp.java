@@ -89,29 +89,52 @@ final class PlainHttp {
                 c.close();
             }
         }
-        c = open();
-        c.send(request, readTimeout);
-        return new Written(c, false, request, readTimeout);
+        return new Written(sendOnNew(request, readTimeout), false, request, readTimeout);
     }
 
     /**
      * Reads the reply of a written request. A kept-alive connection the server had already closed gives no
-     * byte at all: the request is written once more on a new connection (nothing of it can have been answered).
+     * byte at all: the request is written once more on a new connection (nothing of it can have been answered),
+     * whose reply is read like the first, time-out included.
      */
     Reply read(Written w) throws IOException {
         try {
-            return finish(w.connection, w.connection.reply());
+            return replyOn(w.connection);
         } catch (EOFException closedBeforeReply) {
-            w.connection.close();
-            if (!w.reused) throw new IOException("the connection was closed before a reply");
-            Connection c = open();
-            c.send(w.request, w.readTimeout);
+            if (!w.reused) throw closedBeforeReply();
+        }
+        try {
+            return replyOn(sendOnNew(w.request, w.readTimeout));
+        } catch (EOFException again) {
+            throw closedBeforeReply();
+        }
+    }
+
+    private static IOException closedBeforeReply() {
+        return new IOException("the connection was closed before a reply");
+    }
+
+    /** The reply on a connection; the connection is closed when anything goes wrong. */
+    private Reply replyOn(Connection c) throws IOException {
+        try {
             return finish(c, c.reply());
         } catch (SocketTimeoutException e) {
-            w.connection.close();
+            c.close();
             throw new HttpTimeoutException("request timed out");
         } catch (IOException | RuntimeException e) {
-            w.connection.close();
+            c.close();
+            throw e;
+        }
+    }
+
+    /** A new connection with the request written on it; closed again if the writing fails. */
+    private Connection sendOnNew(byte[] request, Duration readTimeout) throws IOException {
+        Connection c = open();
+        try {
+            c.send(request, readTimeout);
+            return c;
+        } catch (IOException | RuntimeException e) {
+            c.close();
             throw e;
         }
     }

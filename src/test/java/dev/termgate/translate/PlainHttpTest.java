@@ -233,6 +233,23 @@ class PlainHttpTest {
     }
 
     @Test
+    void theReplacementConnectionHasTheSameTimeout() throws Exception {
+        // Requests in the order the server reads them: answered, then the kept connection closed, then the
+        // request sent again on a new connection left unanswered.
+        AtomicInteger seen = new AtomicInteger();
+        Function<Integer, String> silent = silentFor(10_000);
+        RawServer s = server(n -> switch (seen.getAndIncrement()) {
+            case 0 -> ok("{}");
+            case 1 -> null;
+            default -> silent.apply(n);
+        });
+        PlainHttp http = new PlainHttp(s.uri(), SHORT);
+        post(http, s.uri(), "{}", SHORT);
+        assertThrows(HttpTimeoutException.class, () -> post(http, s.uri(), "{}", Duration.ofMillis(300)));
+        assertEquals(2, s.connections.get());
+    }
+
+    @Test
     void aNewConnectionClosedWithoutAReplyIsAFailure() throws Exception {
         RawServer s = server(n -> null);
         IOException e = assertThrows(IOException.class, () -> post(new PlainHttp(s.uri(), SHORT), s.uri(), "{}", SHORT));
