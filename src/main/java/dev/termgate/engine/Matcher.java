@@ -31,6 +31,9 @@ import java.util.Set;
  * filters is re-checked on the client with openCypher semantics, so pushdown can only make things faster.
  */
 final class Matcher {
+    /** Off only to compare with the scan (LabelIndexDifferentialTest, EngineBench). */
+    static volatile boolean labelIndex = true;
+
     private final GraphPort port;
     private final GraphSchema schema;
     private final Evaluator ev;
@@ -337,11 +340,8 @@ final class Matcher {
     @SuppressWarnings("unchecked")
     GraphTraversal<Vertex, Vertex> compileSteps(PartPlan plan, Row row, List<Pushdown> pushed, boolean explain) {
         int s = plan.start();
-        String first = plan.nodeVars().get(s);
-        GraphTraversal<Vertex, Vertex> t = row.has(first)
-                ? port.g().V(explain ? "$" + first : ((NodeValue) row.get(first)).id())
-                : port.g().V();
-        if (!filterNode(t, plan, s, row, pushed, explain)) return null;
+        GraphTraversal<Vertex, Vertex> t = start(plan, s, row, pushed, explain);
+        if (t == null) return null;
         t.as("n" + s);
         List<Integer> visitedNodes = new ArrayList<>(List.of(s));
         List<Integer> visitedRels = new ArrayList<>();
@@ -356,6 +356,41 @@ final class Matcher {
             if (t == null) return null;
         }
         return t;
+    }
+
+    /**
+     * The vertices node {@code s} may be, filtered: the bound one; on the embedded graph, when the node has a label
+     * and no equality for the property index to answer, its label's vertices looked up by id (when they are few
+     * enough, see {@link GraphPort#selectiveVertexIds}; {@code $labelIndex} in a plan); otherwise every vertex. Null
+     * when nothing can match.
+     */
+    private GraphTraversal<Vertex, Vertex> start(PartPlan plan, int s, Row row, List<Pushdown> pushed, boolean explain) {
+        String var = plan.nodeVars().get(s);
+        if (row.has(var)) {
+            GraphTraversal<Vertex, Vertex> t = port.g().V(explain ? "$" + var : ((NodeValue) row.get(var)).id());
+            return filterNode(t, plan, s, row, pushed, explain) ? t : null;
+        }
+        GraphTraversal<Vertex, Vertex> t = port.g().V();
+        if (!filterNode(t, plan, s, row, pushed, explain)) return null;
+        Pattern.NodePattern n = plan.nodes().get(s);
+        if (n.labels().isEmpty() || !labelIndex || probesIndex(t)) return t;
+        Optional<Object[]> ids = port.selectiveVertexIds(port.vertexLabelsMatching(n.labels().get(), schema));
+        if (ids.isEmpty()) return t;
+        GraphTraversal<Vertex, Vertex> byId = port.g().V(explain ? new Object[] {"$labelIndex"} : ids.get());
+        filterNode(byId, plan, s, row, pushed, explain);
+        return byId;
+    }
+
+    /** Whether the start's steps hold an equality the embedded graph's property index answers (see {@link #has}). */
+    private static boolean probesIndex(GraphTraversal<?, ?> t) {
+        for (var step : t.asAdmin().getBytecode().getStepInstructions()) {
+            Object[] args = step.getArguments();
+            if (step.getOperator().equals("has") && args.length == 2 && args[1] instanceof P<?> p
+                    && p.getBiPredicate() == Compare.eq) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /**
@@ -594,10 +629,10 @@ final class Matcher {
             NodeValue n = (NodeValue) row.get(first);
             return nodeMatches(plan.nodes().get(0), n) ? List.of(n) : List.of();
         }
-        GraphTraversal<Vertex, Vertex> t = port.g().V();
         PartPlan single = new PartPlan(plan.nodes().subList(0, 1), List.of(), plan.nodeVars().subList(0, 1), List.of(),
                 false, Optional.empty(), false, 0, Pattern.PathKind.PLAIN);
-        if (!filterNode(t, single, 0, row, pushed, false)) return List.of();
+        GraphTraversal<Vertex, Vertex> t = start(single, 0, row, pushed, false);
+        if (t == null) return List.of();
         List<NodeValue> out = new ArrayList<>();
         GraphTraversal<Vertex, ?> m = t.elementMap();
         try {

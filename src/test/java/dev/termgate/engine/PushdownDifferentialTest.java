@@ -180,27 +180,11 @@ class PushdownDifferentialTest {
             Result r = engine.run(new Request(q, text, GraphSchema.empty(), null, Limits.unlimitedRows(Duration.ofSeconds(20))));
             List<String> rows = new ArrayList<>();
             rows.add(String.join(",", r.columns()));
-            for (List<Object> row : r.rows()) {
-                List<Object> canon = new ArrayList<>();
-                for (Object v : row) canon.add(v instanceof List<?> l ? sortedLiterals(l) : v);
-                rows.add(Values.literal(canon));
-            }
-            if (!ordered) Collections.sort(rows.subList(1, rows.size()));
+            rows.addAll(ordered ? RowBags.canonical(r.rows()) : RowBags.bag(r.rows()));
             return rows;
         } catch (EngineException e) {
             return List.of("error " + e.code() + " " + e.getMessage());
         }
-    }
-
-    /**
-     * collect() keeps the order rows arrive in, which openCypher leaves open for a MATCH (and the traversal's
-     * barriers may change it), so lists compare as multisets.
-     */
-    private static List<String> sortedLiterals(List<?> l) {
-        List<String> out = new ArrayList<>();
-        for (Object o : l) out.add(Values.literal(o));
-        Collections.sort(out);
-        return out;
     }
 
     @Test
