@@ -15,6 +15,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalLong;
 import java.util.Set;
 
 /**
@@ -41,7 +42,16 @@ final class GraphPort {
     private volatile LabelIndex labelIndex;
 
     /** The embedded graph's vertex ids by stored label, in the order labels first occur, and the vertex count. */
-    private record LabelIndex(Map<String, Object[]> ids, long vertices) {}
+    private record LabelIndex(Map<String, Object[]> ids, long vertices) {
+        long count(List<String> labels) {
+            long n = 0;
+            for (String label : labels) {
+                Object[] of = ids.get(label);
+                if (of != null) n += of.length;
+            }
+            return n;
+        }
+    }
 
     /**
      * Looking up a third of the vertices by id took about as long as testing every vertex's label; fewer were
@@ -96,26 +106,25 @@ final class GraphPort {
      * {@link #SELECTIVE} of all vertices; empty on a remote graph, for a label that covers more, or for none.
      */
     Optional<Object[]> selectiveVertexIds(List<String> stored) {
-        if (local == null || stored.isEmpty()) return Optional.empty();
+        if (local == null) return Optional.empty();
         LabelIndex index = labelIndex();
-        List<Object[]> parts = new ArrayList<>(stored.size());
-        long count = 0;
-        for (String label : stored) {
-            Object[] ids = index.ids().get(label);
-            if (ids == null) continue;
-            parts.add(ids);
-            count += ids.length;
-        }
+        long count = index.count(stored);
         // No ids at all would read as "every vertex" to V(...).
         if (count == 0 || count > SELECTIVE * index.vertices()) return Optional.empty();
-        if (parts.size() == 1) return Optional.of(parts.get(0));
+        if (stored.size() == 1) return Optional.of(index.ids().get(stored.get(0)));
         Object[] all = new Object[(int) count];
         int at = 0;
-        for (Object[] ids : parts) {
+        for (String label : stored) {
+            Object[] ids = index.ids().getOrDefault(label, new Object[0]);
             System.arraycopy(ids, 0, all, at, ids.length);
             at += ids.length;
         }
         return Optional.of(all);
+    }
+
+    /** How many of the embedded graph's vertices carry one of the {@code stored} labels; empty on a remote graph. */
+    OptionalLong vertexCount(List<String> stored) {
+        return local == null ? OptionalLong.empty() : OptionalLong.of(labelIndex().count(stored));
     }
 
     private LabelIndex labelIndex() {

@@ -20,6 +20,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalLong;
 import java.util.Set;
 
 /**
@@ -31,7 +32,7 @@ import java.util.Set;
  * filters is re-checked on the client with openCypher semantics, so pushdown can only make things faster.
  */
 final class Matcher {
-    /** Off only to compare with the scan (LabelIndexDifferentialTest, EngineBench). */
+    /** Off only to compare with scans and the planner's order before it (LabelIndexDifferentialTest, EngineBench). */
     static volatile boolean labelIndex = true;
 
     private final GraphPort port;
@@ -126,7 +127,8 @@ final class Matcher {
         for (int i = 1; i < nodes.size(); i++) {
             int sc = score(nodes.get(i), nodeVars.get(i), row, pushed);
             // A variable-length part can only start at an end.
-            if (sc > bestScore && (!varLength || i == nodes.size() - 1)) {
+            if ((sc > bestScore || sc == bestScore && fewerVertices(nodes.get(i), nodes.get(best)))
+                    && (!varLength || i == nodes.size() - 1)) {
                 best = i;
                 bestScore = sc;
             }
@@ -156,6 +158,17 @@ final class Matcher {
         }
         if (n.labels().isPresent()) s += 5;
         return s;
+    }
+
+    /**
+     * Between two starts that score alike: on the embedded graph, whose label index counts each label's vertices,
+     * the node whose labels have fewer vertices ({@code (pc:PortCall)-[:AT_PORT]->(p:Port)} starts at the ports).
+     */
+    private boolean fewerVertices(Pattern.NodePattern a, Pattern.NodePattern b) {
+        if (!labelIndex || a.labels().isEmpty() || b.labels().isEmpty()) return false;
+        OptionalLong na = port.vertexCount(port.vertexLabelsMatching(a.labels().get(), schema));
+        OptionalLong nb = port.vertexCount(port.vertexLabelsMatching(b.labels().get(), schema));
+        return na.isPresent() && nb.isPresent() && na.getAsLong() < nb.getAsLong();
     }
 
     private static Pattern.RelPattern flipped(Pattern.RelPattern r) {

@@ -56,6 +56,10 @@ class LabelIndexDifferentialTest {
         "MATCH (x:Z) RETURN x",
         "MATCH (a:A) WITH a MATCH (b:A) WHERE b.p = a.p RETURN count(*)",
         "MATCH (a:A)-[:R]->(b:A) RETURN a.p, b.p ORDER BY a.p, b.p LIMIT 3",
+        // the planner starts at the rarer label
+        "MATCH (c:C)-[r:R]->(a:A) RETURN c.p, a.p, r",
+        "MATCH (c:C)-[:S*1..2]->(a:A|B) RETURN c.s, count(*)",
+        "MATCH p = (c:C)<-[:R]-(b:B)-[:S]->(x) RETURN nodes(p)",
     };
 
     /** Labels skewed so that A, A&B and B fall under the index's threshold and C does not. */
@@ -117,6 +121,19 @@ class LabelIndexDifferentialTest {
             // C covers more than a third of the vertices: testing each label is as quick
             assertFalse(plan(engine, "MATCH (a:C) RETURN a").contains("$labelIndex"));
             assertFalse(plan(engine, "MATCH (a) RETURN a").contains("$labelIndex"));
+        }
+    }
+
+    @Test
+    void ofTwoLabelledStartsThePlannerTakesTheRarerLabel() {
+        try (Engine engine = Engines.embedded(graph(new Random(5L)), "labels")) {
+            String plan = plan(engine, "MATCH (c:C)-[:R]->(a:A) RETURN c.p, a.p");
+            assertTrue(plan.contains("g.V($labelIndex).hasLabel(within(['A', 'A::B'])).as('n1')")
+                    || plan.contains("g.V($labelIndex).hasLabel(within(['A::B', 'A'])).as('n1')"), plan);
+            // the scan's planner took the first of equals
+            Matcher.labelIndex = false;
+            plan = plan(engine, "MATCH (c:C)-[:R]->(a:A) RETURN c.p, a.p");
+            assertTrue(plan.contains("g.V().hasLabel('C').as('n0')"), plan);
         }
     }
 
