@@ -61,7 +61,7 @@ final class Arith {
 
     static Object div(Object l, Object r) {
         if (l == null || r == null) return null;
-        if (l instanceof DurationValue d && Values.isNumber(r)) return d.times(1.0 / ((Number) r).doubleValue());
+        if (l instanceof DurationValue d && Values.isNumber(r)) return d.dividedBy(((Number) r).doubleValue());
         if (l instanceof Long a && r instanceof Long b) {
             if (b == 0) throw EngineException.runtime("division by zero");
             if (a == Long.MIN_VALUE && b == -1) throw overflow();

@@ -113,7 +113,11 @@ final class Executor implements Evaluator.Host {
                 Table t = project(r.projection(), rows, Optional.empty(), scope);
                 rows = t.rows();
                 columns = t.columns();
-            } else rows = writeHandler.apply(c, rows, this);
+            } else {
+                rows = writeHandler.apply(c, rows, this);
+                // The importer's CREATE binds its pattern's variables for the clauses after it (WITH * included).
+                if (c instanceof Clause.Create create) scope.addAll(introduced(create.pattern(), rows));
+            }
         }
         return new Table(columns, rows);
     }

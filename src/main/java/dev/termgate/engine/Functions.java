@@ -14,6 +14,14 @@ import java.util.UUID;
 final class Functions {
     private final Evaluator.Host host;
 
+    /** The statement's clock, read once per query (an Evaluator, and so this, serves one query). */
+    private java.time.ZonedDateTime statementNow;
+
+    private synchronized java.time.ZonedDateTime statementNow() {
+        if (statementNow == null) statementNow = java.time.ZonedDateTime.now(java.time.ZoneOffset.UTC);
+        return statementNow;
+    }
+
     Functions(Evaluator.Host host) {
         this.host = host;
     }
@@ -155,7 +163,7 @@ final class Functions {
             case "split" -> a.contains(null) ? null : split(str(name, a.get(0)), str(name, a.get(1)));
             case "char_length", "character_length" -> nullOr(a, 0, v -> (long) str(name, v).codePointCount(0, str(name, v).length()));
             default -> {
-                if (isTemporal(name)) yield Temporals.construct(name, a);
+                if (isTemporal(name)) yield Temporals.construct(name, a, this::statementNow);
                 throw EngineException.runtime("unknown function '" + call.qualifiedName() + "'");
             }
         };
