@@ -8,6 +8,7 @@ import dev.termgate.query.Expr;
 import dev.termgate.query.LabelExpr;
 import dev.termgate.query.Node;
 import dev.termgate.query.Pattern;
+import dev.termgate.query.Printer;
 import dev.termgate.query.Query;
 import dev.termgate.query.SingleQuery;
 import dev.termgate.query.Trees;
@@ -320,6 +321,7 @@ final class ScopeCheck implements Check {
                 }
                 orderExpr(s.expr(), orderScope, projected, dropping ? (p.distinct() ? "DISTINCT" : "aggregation") : null,
                         new Place("ORDER BY", aggregating, false));
+                if (aggregating && containsAggregate(s.expr())) projectedBesideAggregate(s.expr(), projected);
             }
             p.skip().ifPresent(x -> constant(x, "SKIP", scope));
             p.limit().ifPresent(x -> constant(x, "LIMIT", scope));
@@ -342,6 +344,26 @@ final class ScopeCheck implements Check {
          */
         private static String groupingKey(Expr.Property pr) {
             return ((Expr.Variable) pr.target()).name() + '\u0000' + pr.key();
+        }
+
+        /**
+         * In an ORDER BY item that aggregates, a part equal to a projected expression stands for a grouping key only
+         * when that expression is a variable or a property of one; any other is ambiguous (openCypher TCK,
+         * ReturnOrderBy6 [5]: {@code RETURN a.x + b.x, count(*) ORDER BY a.x + b.x + count(*)}).
+         */
+        private void projectedBesideAggregate(Expr e, List<Expr> projected) {
+            if (isAggregate(e)) return;
+            for (Expr x : projected) {
+                if (containsAggregate(x) || x instanceof Expr.Variable
+                        || x instanceof Expr.Property pr && pr.target() instanceof Expr.Variable) {
+                    continue;
+                }
+                if (Trees.equalIgnoringSpans(x, e)) {
+                    cx.report(Diagnostic.of(Code.AMBIGUOUS_AGGREGATION, e, Printer.printOneLine(e)));
+                    return;
+                }
+            }
+            for (Node c : Trees.children(e)) if (c instanceof Expr x) projectedBesideAggregate(x, projected);
         }
 
         /** Reports variables beside an aggregation that are not grouping keys (nor inside one). */
@@ -652,6 +674,9 @@ final class ScopeCheck implements Check {
             if (agg) {
                 aggregate(f, place);
                 argPlace = place.inAggregate();
+            } else if (place.insideAggregate() && name.equals("rand")) {
+                // openCypher TCK, Return6 [15]: NonConstantExpression
+                cx.report(Diagnostic.of(Code.NONDETERMINISTIC_AGGREGATE, f, f.name()));
             }
             List<Type> args = new ArrayList<>();
             for (Expr a : f.args()) args.add(expr(a, scope, argPlace));

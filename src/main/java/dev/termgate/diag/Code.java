@@ -60,6 +60,7 @@ public enum Code {
     AMBIGUOUS_AGGREGATION(2019, Severity.ERROR, "'%s' is used beside an aggregation but is not a grouping key; project it on its own"),
     INVALID_PARAMETER_USE(2020, Severity.ERROR, "a parameter cannot stand for the property map of a pattern in MATCH"),
     MIXED_UNION(2021, Severity.ERROR, "UNION and UNION ALL cannot be mixed in one query"),
+    NONDETERMINISTIC_AGGREGATE(2022, Severity.ERROR, "%s() gives a new value at every call and cannot be aggregated"),
 
     // ---- TG3xxx ontology terms ----
     UNKNOWN_LABEL(3001, Severity.ERROR, "label '%s' is not defined by the ontology"),

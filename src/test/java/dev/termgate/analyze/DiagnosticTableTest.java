@@ -52,6 +52,8 @@ class DiagnosticTableTest {
         MATCH (n) RETURN n SKIP ⟦n⟧.count                                               | -      | TG2018 | SKIP must be a constant; it refers to variable 'n'
         MATCH (me)--(you) RETURN ⟦me⟧.age + count(you.age)                              | -      | TG2019 | 'me' is used beside an aggregation but is not a grouping key; project it on its own
         RETURN 1 AS a UNION RETURN 2 AS a ⟦UNION ALL RETURN 3 AS a⟧                      | -      | TG2021 | UNION and UNION ALL cannot be mixed in one query
+        RETURN count(⟦rand()⟧)                                                          | -      | TG2022 | rand() gives a new value at every call and cannot be aggregated
+        MATCH (a)--(b) RETURN a.x + b.x, count(*) ORDER BY ⟦a.x + b.x⟧ + count(*)        | -      | TG2019 | 'a.x + b.x' is used beside an aggregation but is not a grouping key; project it on its own
         MATCH (v:Vessel) ⟦CREATE (x:Vessel)⟧ RETURN v                                    | ship   | TG4001 | CREATE changes data; only read queries are run
         ⟦MERGE (v:Vessel {name: 'x'})⟧ RETURN v                                          | ship   | TG4005 | MERGE may create data; only read queries are run
         MATCH (v:Vessel) ⟦SET v.name = 'x'⟧ RETURN v                                     | ship   | TG4006 | SET changes data; only read queries are run
