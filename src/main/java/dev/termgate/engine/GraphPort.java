@@ -55,9 +55,9 @@ final class GraphPort {
 
     /**
      * Looking up a third of the vertices by id took about as long as testing every vertex's label; fewer were
-     * quicker. Counting a label's vertices on EngineBench's 1M-node scale graph, by id against by scan: 1% of them
-     * in 12-32 ms against 330-570 ms, 10% in 110-120 against 330-370, 29% in 340-630 against 440-520, 59% in
-     * 640-1090 against 580-1120 (three runs each); whole queries: EngineBench#labelStartsOn1MNodes.
+     * quicker. Counting a label's vertices on a 1M-node scale graph, by id against by scan, three times each: 1% of
+     * them in 7-70 ms against 267-357 ms, 10% in 82-154 against 298-330, 29% in 260-312 against 325-367, 59% in
+     * 614-1019 against 429-773 (EngineBench#labelStartsOn1MNodes, which also times whole queries).
      */
     static final double SELECTIVE = 1.0 / 3;
 
@@ -102,11 +102,12 @@ final class GraphPort {
     }
 
     /**
-     * The ids of the embedded graph's vertices that carry one of the {@code stored} labels, when they are at most
+     * The ids of the embedded graph's vertices that satisfy the label expression, when they are at most
      * {@link #SELECTIVE} of all vertices; empty on a remote graph, for a label that covers more, or for none.
      */
-    Optional<Object[]> selectiveVertexIds(List<String> stored) {
+    Optional<Object[]> selectiveVertexIds(LabelExpr expr, GraphSchema schema) {
         if (local == null) return Optional.empty();
+        List<String> stored = vertexLabelsMatching(expr, schema);
         LabelIndex index = labelIndex();
         long count = index.count(stored);
         // No ids at all would read as "every vertex" to V(...).
@@ -122,9 +123,9 @@ final class GraphPort {
         return Optional.of(all);
     }
 
-    /** How many of the embedded graph's vertices carry one of the {@code stored} labels; empty on a remote graph. */
-    OptionalLong vertexCount(List<String> stored) {
-        return local == null ? OptionalLong.empty() : OptionalLong.of(labelIndex().count(stored));
+    /** How many of the embedded graph's vertices satisfy the label expression; empty on a remote graph. */
+    OptionalLong vertexCount(LabelExpr expr, GraphSchema schema) {
+        return local == null ? OptionalLong.empty() : OptionalLong.of(labelIndex().count(vertexLabelsMatching(expr, schema)));
     }
 
     private LabelIndex labelIndex() {

@@ -166,8 +166,8 @@ final class Matcher {
      */
     private boolean fewerVertices(Pattern.NodePattern a, Pattern.NodePattern b) {
         if (!labelIndex || a.labels().isEmpty() || b.labels().isEmpty()) return false;
-        OptionalLong na = port.vertexCount(port.vertexLabelsMatching(a.labels().get(), schema));
-        OptionalLong nb = port.vertexCount(port.vertexLabelsMatching(b.labels().get(), schema));
+        OptionalLong na = port.vertexCount(a.labels().get(), schema);
+        OptionalLong nb = port.vertexCount(b.labels().get(), schema);
         return na.isPresent() && nb.isPresent() && na.getAsLong() < nb.getAsLong();
     }
 
@@ -387,7 +387,7 @@ final class Matcher {
         if (!filterNode(t, plan, s, row, pushed, explain)) return null;
         Pattern.NodePattern n = plan.nodes().get(s);
         if (n.labels().isEmpty() || !labelIndex || probesIndex(t)) return t;
-        Optional<Object[]> ids = port.selectiveVertexIds(port.vertexLabelsMatching(n.labels().get(), schema));
+        Optional<Object[]> ids = port.selectiveVertexIds(n.labels().get(), schema);
         if (ids.isEmpty()) return t;
         GraphTraversal<Vertex, Vertex> byId = port.g().V(explain ? new Object[] {"$labelIndex"} : ids.get());
         filterNode(byId, plan, s, row, pushed, explain);

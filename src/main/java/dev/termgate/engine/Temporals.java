@@ -610,8 +610,7 @@ final class Temporals {
             if (time instanceof OffsetTime t) return t.atDate(date).atZoneSameInstant(z.getZone());
             return ZonedDateTime.of(date, (LocalTime) time, z.getZone());
         }
-        LocalTime local = time instanceof OffsetTime t ? t.toLocalTime() : (LocalTime) time;
-        return d instanceof LocalDate ? date.atTime(local) : LocalDateTime.of(date, local);
+        return LocalDateTime.of(date, time instanceof OffsetTime t ? t.toLocalTime() : (LocalTime) time);
     }
 
     // ---------------------------------------------------------------- arithmetic and access
